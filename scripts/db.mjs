@@ -1,0 +1,24 @@
+// Usage: node scripts/db.mjs start|stop|status|reset  (the demo database under .data/demo)
+import { demoCluster } from './pg.mjs';
+
+const db = demoCluster();
+const command = process.argv[2] ?? 'status';
+switch (command) {
+	case 'start':
+		console.log(`PostgreSQL running: ${db.start()}`);
+		break;
+	case 'stop':
+		db.stop();
+		console.log('PostgreSQL stopped');
+		break;
+	case 'status':
+		console.log(db.status());
+		break;
+	case 'reset':
+		db.reset();
+		console.log('Demo database removed; the next start creates and seeds it anew');
+		break;
+	default:
+		console.error('usage: node scripts/db.mjs start|stop|status|reset');
+		process.exit(2);
+}

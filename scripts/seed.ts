@@ -1,0 +1,43 @@
+// Seeds the demo scenario once. Idempotent: rows that exist are left as they are.
+import { drizzle } from 'drizzle-orm/postgres-js';
+import postgres from 'postgres';
+import { referenceClimateSlug } from '../src/lib/care';
+import { hashPassword } from '../src/lib/server/auth/password';
+import { nurserySettings, users } from '../src/lib/server/db/schema';
+import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
+
+export async function seedDemo(url: string): Promise<void> {
+	const client = postgres(url, { max: 1, onnotice: () => {} });
+	const db = drizzle(client);
+	try {
+		await db
+			.insert(nurserySettings)
+			.values({
+				id: 1,
+				...DEMO_NURSERY,
+				units: 'metric',
+				timeZone: 'UTC',
+				defaultClimate: referenceClimateSlug,
+				fertilizerName: 'Kestrel Hollow banana mix 8-4-16',
+				npk: [8, 4, 16],
+				restrictedMonths: [],
+				demo: true
+			})
+			.onConflictDoNothing();
+		const passwordHash = await hashPassword(DEMO_PASSWORD);
+		const now = new Date();
+		await db
+			.insert(users)
+			.values(DEMO_ACCOUNTS.map((a) => ({ ...a, role: a.role as 'owner' | 'staff' | 'gardener', passwordHash, emailVerifiedAt: now })))
+			.onConflictDoNothing({ target: users.email });
+	} finally {
+		await client.end();
+	}
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+	const url = process.env.DATABASE_URL;
+	if (!url) throw new Error('DATABASE_URL is not set');
+	await seedDemo(url);
+	console.log('Demo scenario seeded');
+}

@@ -1,0 +1,13 @@
+import type { Handle } from '@sveltejs/kit';
+import { validateSessionCookie } from '$lib/server/auth';
+
+export const handle: Handle = async ({ event, resolve }) => {
+	const { user, session } = await validateSessionCookie(event.cookies);
+	event.locals.user = user;
+	event.locals.session = session;
+	const response = await resolve(event);
+	response.headers.set('X-Content-Type-Options', 'nosniff');
+	response.headers.set('Referrer-Policy', 'same-origin');
+	response.headers.set('X-Frame-Options', 'DENY');
+	return response;
+};

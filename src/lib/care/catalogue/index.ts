@@ -1,0 +1,2 @@
+export { cultivars, findCultivar, referenceCultivar, referenceCultivarSlug } from './cultivars';
+export { climates, findClimate, referenceClimate, referenceClimateSlug } from './climates';

@@ -1,0 +1,84 @@
+/**
+ * Development model: calibration constants and one function per rule of the trade.
+ *
+ * Calibration: the trade's timings (followers ≈ 6 months, shooting ≈ 12 months after 50–60 leaves,
+ * fruit ready ≈ 4 months after the flower, mother's life ≈ 16–17 months — common practice, no
+ * source) hold for a warm subtropical garden. They are converted once into thermal time on the
+ * reference climate, so any other climate stretches or shrinks every interval by its own warmth.
+ */
+import type { Cultivar } from './types';
+import { referenceClimate } from './catalogue/climates';
+import { referenceCultivar } from './catalogue/cultivars';
+import { annualThermalTime } from './thermal';
+
+/** Degree-days in a common year of the reference climate: the thermal length of "12 months". */
+export const REFERENCE_YEAR_DEGREE_DAYS = annualThermalTime(referenceClimate().monthlyMeanC);
+
+/** Thermal length of a reference-climate month: converts the trade's month counts to thermal time. */
+export const REFERENCE_MONTH_DEGREE_DAYS = REFERENCE_YEAR_DEGREE_DAYS / 12;
+
+/** Leaves per degree-day of the reference cultivar, chosen so it shoots at 12 months in the reference. */
+export const LEAVES_PER_DEGREE_DAY = referenceCultivar().leavesToShooting.value / REFERENCE_YEAR_DEGREE_DAYS;
+
+/** Followers show at about 6 months of age (common practice, no source). */
+export const FOLLOWERS_AGE_DEGREE_DAYS = 6 * REFERENCE_MONTH_DEGREE_DAYS;
+
+/** Surplus suckers are thinned once they can be told apart, about 2 months after the first show (common practice, no source). */
+export const THINNING_AFTER_FOLLOWERS_DEGREE_DAYS = 2 * REFERENCE_MONTH_DEGREE_DAYS;
+
+/** A surplus sucker reaches about waist height some 4 months after emerging (common practice, no source). */
+export const WAIST_HEIGHT_AFTER_FOLLOWERS_DEGREE_DAYS = 4 * REFERENCE_MONTH_DEGREE_DAYS;
+
+/** The last hands open and the male bud can be snapped off about 2 weeks after shooting (common practice, no source). */
+export const BUD_REMOVAL_AFTER_SHOOTING_DEGREE_DAYS = (14 / 365) * REFERENCE_YEAR_DEGREE_DAYS;
+
+/**
+ * Published flowering-to-harvest thermal times describe the commercial (export) harvest grade.
+ * A home grower waits until the fingers are plump and just colouring, later than that grade;
+ * 1.45 makes the reference cultivar ready about 4 months after a spring flower in the reference
+ * climate (common practice, no source) and puts tropical lowland bunches at 85–110 days.
+ */
+export const HOME_RIPENESS_FACTOR = 1.45;
+
+/** Stem removal at ground level about 2 weeks after the cut-back (common practice, no source). */
+export const STEM_REMOVAL_AFTER_CUT_BACK_DAYS = 14;
+
+/** Feeding starts once the plant has put out two new leaves (common practice, no source). */
+export const NEW_LEAVES_BEFORE_FEEDING = 2;
+
+/**
+ * Window half-width as a share of the thermal time since the last known fact: 6 % for the plant
+ * sold, 4 % more per generation, because each follower inherits its parent's uncertainty.
+ */
+export const WINDOW_SHARE_BASE = 0.06;
+export const WINDOW_SHARE_PER_GENERATION = 0.04;
+const WINDOW_SHARE_MAX = 0.5;
+
+/** Annual thermal time below which a banana cannot fruit within a human planning horizon. */
+export const MIN_ANNUAL_DEGREE_DAYS = 600;
+
+export function windowShare(generation: number): number {
+	return Math.min(WINDOW_SHARE_MAX, WINDOW_SHARE_BASE + WINDOW_SHARE_PER_GENERATION * generation);
+}
+
+export function leavesPerDegreeDay(cultivar: Cultivar): number {
+	return LEAVES_PER_DEGREE_DAY * cultivar.leafRateFactor.value;
+}
+
+/** Thermal time for a plant to put out `leaves` leaves. */
+export function degreeDaysForLeaves(cultivar: Cultivar, leaves: number): number {
+	return Math.max(0, leaves) / leavesPerDegreeDay(cultivar);
+}
+
+/**
+ * Leaves already out when planted, estimated from the thermal time the plant lived before planting.
+ * Capped two leaves short of shooting: a nursery plant has not yet reached its flag leaf.
+ */
+export function leavesAtPlanting(cultivar: Cultivar, thermalAgeDegreeDays: number): number {
+	return Math.min(cultivar.leavesToShooting.value - NEW_LEAVES_BEFORE_FEEDING, thermalAgeDegreeDays * leavesPerDegreeDay(cultivar));
+}
+
+/** Flowering to the opening of the home-harvest window, degree-days. */
+export function shootingToHarvestDegreeDays(cultivar: Cultivar): number {
+	return cultivar.degreeDaysShootingToHarvest.value * HOME_RIPENESS_FACTOR;
+}

@@ -1,0 +1,35 @@
+import type { z } from 'zod';
+
+export type FieldErrors = Record<string, string>;
+
+/** First message per field, keyed by the dotted path, for showing beside each input. */
+export function fieldErrors(error: z.ZodError): FieldErrors {
+	const out: FieldErrors = {};
+	for (const issue of error.issues) {
+		const key = issue.path.join('.') || 'form';
+		out[key] ??= issue.message;
+	}
+	return out;
+}
+
+/** Reads a form into a plain object; repeated names become arrays. Files are dropped. */
+export function formToObject(data: FormData): Record<string, string | string[]> {
+	const out: Record<string, string | string[]> = {};
+	for (const [key, value] of data.entries()) {
+		if (typeof value !== 'string') continue;
+		const prev = out[key];
+		out[key] = prev === undefined ? value : Array.isArray(prev) ? [...prev, value] : [prev, value];
+	}
+	return out;
+}
+
+export type Parsed<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors; values: Record<string, unknown> };
+
+export function parseForm<S extends z.ZodType>(schema: S, data: FormData, keepBack: string[] = []): Parsed<z.infer<S>> {
+	const raw = formToObject(data);
+	const result = schema.safeParse(raw);
+	if (result.success) return { ok: true, data: result.data };
+	// Secrets are never echoed back into the form.
+	const values = Object.fromEntries(Object.entries(raw).filter(([k]) => !/password|token/i.test(k) || keepBack.includes(k)));
+	return { ok: false, errors: fieldErrors(result.error), values };
+}

@@ -1,0 +1,30 @@
+import { error, redirect } from '@sveltejs/kit';
+import type { Role } from '../../schema/auth';
+
+export type AuthUser = NonNullable<App.Locals['user']>;
+
+interface GuardEvent {
+	locals: App.Locals;
+	url: URL;
+}
+
+/**
+ * The one authorisation check. Every protected load, action and endpoint calls it;
+ * tests/unit/guard-coverage.test.ts fails when one does not.
+ * Signed out: pages redirect to sign-in, endpoints answer 401. Wrong role: 403.
+ */
+export function requireUser(event: GuardEvent, ...roles: Role[]): AuthUser {
+	const user = event.locals.user;
+	if (!user) {
+		if (event.url.pathname.startsWith('/api/') || event.url.pathname.startsWith('/feeds/')) {
+			error(401, 'Sign in first');
+		}
+		redirect(303, `/login?next=${encodeURIComponent(event.url.pathname + event.url.search)}`);
+	}
+	if (roles.length > 0 && !roles.includes(user.role)) {
+		error(403, 'This page is for nursery staff only');
+	}
+	return user;
+}
+
+export const STAFF_ROLES: Role[] = ['owner', 'staff'];

@@ -1,0 +1,42 @@
+import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
+import { Lucia, TimeSpan } from 'lucia';
+import { config } from '../config';
+import { db } from '../db';
+import { sessions, users } from '../db/schema';
+
+export const lucia = new Lucia(new DrizzlePostgreSQLAdapter(db, sessions, users), {
+	sessionExpiresIn: new TimeSpan(14, 'd'),
+	sessionCookie: {
+		name: 'bunchline_session',
+		attributes: { secure: config.secureCookies, sameSite: 'lax' }
+	},
+	getUserAttributes: (a) => ({
+		email: a.email,
+		name: a.name,
+		role: a.role,
+		units: a.units,
+		emailVerified: a.emailVerifiedAt != null
+	}),
+	getSessionAttributes: (a) => ({ createdAt: a.createdAt })
+});
+
+/**
+ * Lucia v3 only has a sliding expiry; sessions also end this long after sign-in,
+ * whatever the activity (OWASP Session Management Cheat Sheet: absolute timeout).
+ */
+export const ABSOLUTE_SESSION_LIFETIME_MS = 30 * 24 * 60 * 60 * 1000;
+
+declare module 'lucia' {
+	interface Register {
+		Lucia: typeof lucia;
+		UserId: number;
+		DatabaseUserAttributes: {
+			email: string;
+			name: string;
+			role: 'owner' | 'staff' | 'gardener';
+			units: 'metric' | 'imperial';
+			emailVerifiedAt: Date | null;
+		};
+		DatabaseSessionAttributes: { createdAt: Date };
+	}
+}

@@ -1,0 +1,39 @@
+import type { Cookies } from '@sveltejs/kit';
+import type { Session, User } from 'lucia';
+import { ABSOLUTE_SESSION_LIFETIME_MS, lucia } from './lucia';
+
+function setCookie(cookies: Cookies, cookie: { name: string; value: string; attributes: Record<string, unknown> }) {
+	cookies.set(cookie.name, cookie.value, { path: '.', ...cookie.attributes });
+}
+
+export async function validateSessionCookie(
+	cookies: Cookies,
+	now = Date.now()
+): Promise<{ user: User | null; session: Session | null }> {
+	const sessionId = cookies.get(lucia.sessionCookieName);
+	if (!sessionId) return { user: null, session: null };
+	const { session, user } = await lucia.validateSession(sessionId);
+	if (session && now - session.createdAt.getTime() > ABSOLUTE_SESSION_LIFETIME_MS) {
+		await lucia.invalidateSession(session.id);
+		setCookie(cookies, lucia.createBlankSessionCookie());
+		return { user: null, session: null };
+	}
+	if (session?.fresh) setCookie(cookies, lucia.createSessionCookie(session.id));
+	if (!session) setCookie(cookies, lucia.createBlankSessionCookie());
+	return { user, session };
+}
+
+export async function startSession(cookies: Cookies, userId: number): Promise<void> {
+	const session = await lucia.createSession(userId, { createdAt: new Date() });
+	setCookie(cookies, lucia.createSessionCookie(session.id));
+}
+
+export async function endSession(cookies: Cookies, sessionId: string): Promise<void> {
+	await lucia.invalidateSession(sessionId);
+	setCookie(cookies, lucia.createBlankSessionCookie());
+}
+
+/** Every session of the user ends, e.g. when the password changes. */
+export function endAllSessions(userId: number): Promise<void> {
+	return lucia.invalidateUserSessions(userId);
+}

@@ -1,0 +1,9 @@
+import { drizzle } from 'drizzle-orm/postgres-js';
+import postgres from 'postgres';
+import { config } from '../config';
+import * as schema from './schema';
+
+const client = postgres(config.databaseUrl, { max: 10, onnotice: () => {} });
+export const db = drizzle(client, { schema });
+export type Db = typeof db;
+export { schema };

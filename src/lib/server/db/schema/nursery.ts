@@ -1,0 +1,18 @@
+import { boolean, integer, jsonb, pgTable, real, text, timestamp } from 'drizzle-orm/pg-core';
+
+/** One row: the nursery this instance serves. */
+export const nurserySettings = pgTable('nursery_settings', {
+	id: integer('id').primaryKey().default(1),
+	name: text('name').notNull(),
+	town: text('town').notNull(),
+	market: text('market').notNull(),
+	units: text('units', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+	timeZone: text('time_zone').notNull().default('UTC'),
+	defaultClimate: text('default_climate').notNull(),
+	fertilizerName: text('fertilizer_name').notNull(),
+	npk: jsonb('npk').$type<[number, number, number]>().notNull(),
+	restrictedMonths: jsonb('restricted_months').$type<number[]>().notNull().default([]),
+	nitrogenCapKgPer100m2: real('nitrogen_cap_kg_per_100m2'),
+	demo: boolean('demo').notNull().default(false),
+	updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+});

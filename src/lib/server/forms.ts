@@ -1,0 +1,27 @@
+import { fail } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { parseForm } from '../schema/form';
+import { UserFacingError } from './errors';
+
+/**
+ * The shape of every form action: parse with the shared schema, run the service,
+ * and turn a refusal into a 4xx beside the named field. Nothing is written on refusal.
+ */
+export async function runForm<S extends z.ZodType, R>(
+	request: Request,
+	schema: S,
+	work: (data: z.infer<S>) => Promise<R>
+) {
+	const form = await request.formData().catch(() => new FormData());
+	const parsed = parseForm(schema, form);
+	if (!parsed.ok) return { failure: fail(400, { errors: parsed.errors, values: parsed.values }) };
+	try {
+		return { result: await work(parsed.data) };
+	} catch (e) {
+		if (e instanceof UserFacingError) {
+			const values = Object.fromEntries([...form.entries()].filter(([k, v]) => typeof v === 'string' && !/password|token/i.test(k)));
+			return { failure: fail(e.status, { errors: { [e.field]: e.message }, values }) };
+		}
+		throw e;
+	}
+}

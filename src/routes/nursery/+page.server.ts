@@ -1,0 +1,10 @@
+import { requireUser } from '$lib/server/auth';
+import { accounts } from '$lib/server/accounts/service';
+import { nurseryService } from '$lib/server/nursery/service';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	requireUser(event, 'owner');
+	const [[, people], profile] = await Promise.all([accounts.listTeam(1, 0), nurseryService.publicProfile()]);
+	return { people, profile };
+};

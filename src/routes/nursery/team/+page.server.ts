@@ -1,0 +1,26 @@
+import { changeRoleSchema, inviteSchema } from '$lib/schema/auth';
+import { pageQuery } from '$lib/schema/paging';
+import { accounts } from '$lib/server/accounts/service';
+import { requireUser } from '$lib/server/auth';
+import { runForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const me = requireUser(event, 'owner');
+	const { page, size } = pageQuery(event.url);
+	const [[people, total], invitations] = await Promise.all([accounts.listTeam(size, (page - 1) * size), accounts.listOpenInvitations()]);
+	return { people, total, page, size, invitations, meId: me.id };
+};
+
+export const actions: Actions = {
+	invite: async (event) => {
+		const me = requireUser(event, 'owner');
+		const { failure, result } = await runForm(event.request, inviteSchema, async (d) => (await accounts.invite(d, me.id, event.url.origin), d.email));
+		return failure ?? { invited: result };
+	},
+	role: async (event) => {
+		const me = requireUser(event, 'owner');
+		const { failure } = await runForm(event.request, changeRoleSchema, (d) => accounts.changeRole(d, me.id));
+		return failure ?? { roleChanged: true };
+	}
+};

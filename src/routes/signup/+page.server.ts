@@ -1,0 +1,30 @@
+import { redirect } from '@sveltejs/kit';
+import { acceptInviteSchema, signUpSchema } from '$lib/schema/auth';
+import { accounts } from '$lib/server/accounts/service';
+import { startSession } from '$lib/server/auth';
+import { runForm } from '$lib/server/forms';
+import { HOME_FOR } from '$lib/nav';
+import type { Actions, PageServerLoad } from './$types';
+
+// Public: anyone may create a gardener account; an invitation link pre-fills a staff account.
+export const load: PageServerLoad = async ({ url }) => {
+	const token = url.searchParams.get('invite');
+	if (!token) return { invite: null };
+	const inv = /^[a-z2-7]{32}$/.test(token) ? await accounts.findInvitation(token) : undefined;
+	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const } };
+};
+
+export const actions: Actions = {
+	// Public: sign-up.
+	default: async ({ request, url }) => {
+		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, url.origin));
+		return failure ?? { sentTo: result.email };
+	},
+	// Public: the invitation token is the credential.
+	accept: async ({ request, cookies }) => {
+		const { failure, result: user } = await runForm(request, acceptInviteSchema, (data) => accounts.acceptInvitation(data));
+		if (failure) return failure;
+		await startSession(cookies, user.id);
+		redirect(303, HOME_FOR[user.role]);
+	}
+};

@@ -1,0 +1,19 @@
+import { redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import { tokenField } from '$lib/schema/auth';
+import { accounts } from '$lib/server/accounts/service';
+import { runForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+// Public: the e-mailed link lands here. Confirming takes a click (a POST), so link scanners
+// that fetch the URL do not use up the token.
+export const load: PageServerLoad = ({ url }) => ({ token: url.searchParams.get('token') ?? '' });
+
+export const actions: Actions = {
+	// Public: the token is the credential.
+	default: async ({ request }) => {
+		const { failure } = await runForm(request, z.object({ token: tokenField }), (d) => accounts.verifyEmail(d.token));
+		if (failure) return failure;
+		redirect(303, '/login?verified=1');
+	}
+};

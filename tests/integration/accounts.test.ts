@@ -1,0 +1,162 @@
+import { eq } from 'drizzle-orm';
+import { describe, expect, it } from 'vitest';
+import { accounts, TOKEN_LIFETIME_MS } from '../../src/lib/server/accounts/service';
+import { lucia } from '../../src/lib/server/auth';
+import { ARGON2_OPTIONS } from '../../src/lib/server/auth/password';
+import { db } from '../../src/lib/server/db';
+import { sessions, signInAttempts, users } from '../../src/lib/server/db/schema';
+import { UserFacingError } from '../../src/lib/server/errors';
+import { tableCounts, uniqueEmail } from '../helpers/db';
+import { linkIn, waitForMail } from '../helpers/mail';
+
+const origin = 'http://127.0.0.1:9';
+const password = 'a long enough phrase';
+
+async function signedUpAndVerified(role: 'owner' | 'staff' | 'gardener' = 'gardener') {
+	const email = uniqueEmail(role);
+	const user = await accounts.signUp({ name: 'Test Person', email, password }, origin);
+	const token = linkIn(await waitForMail(email, 'Confirm')).searchParams.get('token')!;
+	await accounts.verifyEmail(token);
+	if (role !== 'gardener') await db.update(users).set({ role }).where(eq(users.id, user.id));
+	return { ...user, email };
+}
+
+async function refusal(p: Promise<unknown>): Promise<UserFacingError> {
+	const e = await p.then(() => null, (err) => err);
+	expect(e).toBeInstanceOf(UserFacingError);
+	return e as UserFacingError;
+}
+
+describe('sign-up and verification', () => {
+	it('stores an argon2id hash with the OWASP parameters, never the password', async () => {
+		const { email } = await signedUpAndVerified();
+		const [row] = await db.select().from(users).where(eq(users.email, email));
+		// OWASP Password Storage Cheat Sheet: argon2id, m=19456 KiB, t=2, p=1 (PHC string format)
+		expect(row.passwordHash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
+		expect(row.passwordHash).not.toContain(password);
+		expect(ARGON2_OPTIONS).toMatchObject({ memoryCost: 19456, timeCost: 2, parallelism: 1 });
+		expect(row.emailVerifiedAt).not.toBeNull();
+	});
+
+	it('refuses a duplicate e-mail with 409 on the email field and writes nothing', async () => {
+		const { email } = await signedUpAndVerified();
+		const before = await tableCounts();
+		const e = await refusal(accounts.signUp({ name: 'Again', email, password }, origin));
+		expect(e.status).toBe(409);
+		expect(e.field).toBe('email');
+		expect(await tableCounts()).toEqual(before);
+	});
+
+	it('a verification link works once', async () => {
+		const email = uniqueEmail();
+		await accounts.signUp({ name: 'Once', email, password }, origin);
+		const token = linkIn(await waitForMail(email, 'Confirm')).searchParams.get('token')!;
+		await accounts.verifyEmail(token);
+		const e = await refusal(accounts.verifyEmail(token));
+		expect(e.status).toBe(410);
+	});
+
+	it('a verification link expires after 48 hours', async () => {
+		const email = uniqueEmail();
+		await accounts.signUp({ name: 'Late', email, password }, origin);
+		const token = linkIn(await waitForMail(email, 'Confirm')).searchParams.get('token')!;
+		const later = new Date(Date.now() + TOKEN_LIFETIME_MS['verify-email'] + 1000);
+		expect((await refusal(accounts.verifyEmail(token, later))).field).toBe('token');
+	});
+
+	it('an unverified account cannot sign in yet', async () => {
+		const email = uniqueEmail();
+		await accounts.signUp({ name: 'Waiting', email, password }, origin);
+		const e = await refusal(accounts.signIn({ email, password }, '10.9.9.1'));
+		expect(e.field).toBe('email');
+		expect(e.status).toBe(403);
+	});
+});
+
+describe('sign-in', () => {
+	it('accepts the right password and refuses a wrong one with the same message for unknown e-mails', async () => {
+		const { email } = await signedUpAndVerified();
+		expect((await accounts.signIn({ email, password }, '10.0.0.1')).email).toBe(email);
+		const wrong = await refusal(accounts.signIn({ email, password: 'not the password' }, '10.0.0.1'));
+		const unknown = await refusal(accounts.signIn({ email: uniqueEmail('nobody'), password }, '10.0.0.1'));
+		expect(wrong.message).toBe(unknown.message);
+	});
+
+	it('is limited per e-mail, with the counts in PostgreSQL', async () => {
+		const { email } = await signedUpAndVerified();
+		for (let i = 0; i < 5; i++) await refusal(accounts.signIn({ email, password: 'wrong password' }, `10.1.0.${i}`));
+		const blocked = await refusal(accounts.signIn({ email, password }, '10.1.0.99'));
+		expect(blocked.status).toBe(429);
+		const rows = await db.select().from(signInAttempts).where(eq(signInAttempts.key, `email:${email}`));
+		expect(rows.length).toBe(5);
+	});
+
+	it('is limited per address across e-mails', async () => {
+		const ip = `10.2.${process.pid % 250}.7`;
+		for (let i = 0; i < 30; i++) await refusal(accounts.signIn({ email: uniqueEmail('spray'), password: 'wrong password' }, ip));
+		const { email } = await signedUpAndVerified();
+		expect((await refusal(accounts.signIn({ email, password }, ip))).status).toBe(429);
+	});
+});
+
+describe('password reset', () => {
+	it('sets the new password, is single use, and ends every session', async () => {
+		const user = await signedUpAndVerified();
+		await lucia.createSession(user.id, { createdAt: new Date() });
+		await lucia.createSession(user.id, { createdAt: new Date() });
+		await accounts.requestPasswordReset(user.email, origin);
+		const token = linkIn(await waitForMail(user.email, 'Reset')).searchParams.get('token')!;
+		await accounts.resetPassword({ token, password: 'a brand new phrase' });
+		expect(await db.select().from(sessions).where(eq(sessions.userId, user.id))).toHaveLength(0);
+		expect((await accounts.signIn({ email: user.email, password: 'a brand new phrase' }, '10.3.0.1')).id).toBe(user.id);
+		const reused = await refusal(accounts.resetPassword({ token, password: 'yet another phrase' }));
+		expect(reused.status).toBe(410);
+	});
+
+	it('a reset link expires after one hour and changes nothing', async () => {
+		const user = await signedUpAndVerified();
+		await accounts.requestPasswordReset(user.email, origin);
+		const token = linkIn(await waitForMail(user.email, 'Reset')).searchParams.get('token')!;
+		const [before] = await db.select().from(users).where(eq(users.id, user.id));
+		const later = new Date(Date.now() + TOKEN_LIFETIME_MS['reset-password'] + 1000);
+		await refusal(accounts.resetPassword({ token, password: 'too late phrase' }, later));
+		const [after] = await db.select().from(users).where(eq(users.id, user.id));
+		expect(after.passwordHash).toBe(before.passwordHash);
+	});
+
+	it('says nothing about unknown e-mails', async () => {
+		await expect(accounts.requestPasswordReset(uniqueEmail('ghost'), origin)).resolves.toBeUndefined();
+	});
+});
+
+describe('team and roles', () => {
+	it('an invitation creates a verified account with the invited role, once', async () => {
+		const owner = await signedUpAndVerified('owner');
+		const email = uniqueEmail('newstaff');
+		await accounts.invite({ email, role: 'staff' }, owner.id, origin);
+		const token = linkIn(await waitForMail(email, 'invited')).searchParams.get('invite')!;
+		const user = await accounts.acceptInvitation({ token, name: 'New Staff', password });
+		expect(user.role).toBe('staff');
+		expect(user.emailVerifiedAt).not.toBeNull();
+		expect((await refusal(accounts.acceptInvitation({ token, name: 'Again', password }))).status).toBe(410);
+	});
+
+	it('refuses to invite an existing account', async () => {
+		const owner = await signedUpAndVerified('owner');
+		const other = await signedUpAndVerified();
+		expect((await refusal(accounts.invite({ email: other.email, role: 'staff' }, owner.id, origin))).field).toBe('email');
+	});
+
+	it('changes a role, ends that person\'s sessions, and keeps at least one owner', async () => {
+		await db.update(users).set({ role: 'gardener' }).where(eq(users.role, 'owner'));
+		const owner = await signedUpAndVerified('owner');
+		const person = await signedUpAndVerified();
+		await lucia.createSession(person.id, { createdAt: new Date() });
+		await accounts.changeRole({ userId: person.id, role: 'staff' }, owner.id);
+		const [row] = await db.select().from(users).where(eq(users.id, person.id));
+		expect(row.role).toBe('staff');
+		expect(await db.select().from(sessions).where(eq(sessions.userId, person.id))).toHaveLength(0);
+		const e = await refusal(accounts.changeRole({ userId: owner.id, role: 'gardener' }, owner.id));
+		expect(e.field).toBe('role');
+	});
+});

@@ -1,0 +1,18 @@
+// Starts a PostgreSQL cluster of the tests' own (never the demo one), creates a fresh
+// database for this run, migrates it, and drops it afterwards.
+import { cluster } from '../../scripts/pg.mjs';
+import { migrateDatabase } from '../../scripts/migrate';
+
+export default async function setup() {
+	const pg = cluster({ dir: '.data/test', port: Number(process.env.BUNCHLINE_TEST_PG_PORT ?? 54339), database: 'postgres', fast: true });
+	pg.start();
+	const name = `bunchline_test_${process.pid}_${Date.now().toString(36)}`;
+	pg.createDatabase(name);
+	const url = pg.url.replace(/\/postgres$/, `/${name}`);
+	await migrateDatabase(url);
+	process.env.DATABASE_URL = url;
+	process.env.BUNCHLINE_ENV = 'test';
+	return async () => {
+		pg.dropDatabase(name);
+	};
+}

@@ -1,0 +1,25 @@
+// A fake mail service of the tests' own, writing into a temporary folder.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { startMailServer } from '../../scripts/mail-server.mjs';
+
+declare module 'vitest' {
+	export interface ProvidedContext {
+		mailDir: string;
+	}
+}
+
+export default async function setup(project: TestProject) {
+	const port = Number(process.env.BUNCHLINE_TEST_SMTP_PORT ?? 2535) + (project.name === 'e2e' ? 1 : 0);
+	const mailDir = mkdtempSync(join(tmpdir(), `bunchline-mail-${project.name}-`));
+	const server = await startMailServer({ port, dir: mailDir });
+	process.env.SMTP_PORT = String(port);
+	process.env.MAIL_DIR = mailDir;
+	project.provide('mailDir', mailDir);
+	return async () => {
+		await new Promise<void>((r) => server.close(() => r()));
+		rmSync(mailDir, { recursive: true, force: true });
+	};
+}
