@@ -14,7 +14,7 @@ export const load: PageServerLoad = ({ locals, url }) => {
 
 export const actions: Actions = {
 	// Public: signing in is how one becomes a user.
-	default: async ({ request, cookies, getClientAddress, url }) => {
+	signin: async ({ request, cookies, getClientAddress, url }) => {
 		const { failure, result: user } = await runForm(request, signInSchema, (data) => accounts.signIn(data, getClientAddress()));
 		if (failure) return failure;
 		await startSession(cookies, user.id);

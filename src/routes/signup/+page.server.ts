@@ -16,7 +16,7 @@ export const load: PageServerLoad = async ({ url }) => {
 
 export const actions: Actions = {
 	// Public: sign-up.
-	default: async ({ request, url }) => {
+	create: async ({ request, url }) => {
 		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, url.origin));
 		return failure ?? { sentTo: result.email };
 	},

@@ -1,10 +1,15 @@
-import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
+import { DrizzlePostgreSQLAdapter, type PostgreSQLUserTable } from '@lucia-auth/adapter-drizzle';
 import { Lucia, TimeSpan } from 'lucia';
 import { config } from '../config';
 import { db } from '../db';
 import { sessions, users } from '../db/schema';
 
-export const lucia = new Lucia(new DrizzlePostgreSQLAdapter(db, sessions, users), {
+export const lucia = new Lucia(new DrizzlePostgreSQLAdapter(
+		db,
+		sessions,
+		// Ids are identity columns the database assigns; the adapter only reads them, so its insert type does not apply.
+		users as unknown as PostgreSQLUserTable
+	), {
 	sessionExpiresIn: new TimeSpan(14, 'd'),
 	sessionCookie: {
 		name: 'bunchline_session',

@@ -1,9 +1,9 @@
 import type { Cookies } from '@sveltejs/kit';
-import type { Session, User } from 'lucia';
+import type { Cookie, Session, User } from 'lucia';
 import { ABSOLUTE_SESSION_LIFETIME_MS, lucia } from './lucia';
 
-function setCookie(cookies: Cookies, cookie: { name: string; value: string; attributes: Record<string, unknown> }) {
-	cookies.set(cookie.name, cookie.value, { path: '.', ...cookie.attributes });
+function setCookie(cookies: Cookies, cookie: Cookie) {
+	cookies.set(cookie.name, cookie.value, { ...cookie.attributes, path: '/' });
 }
 
 export async function validateSessionCookie(

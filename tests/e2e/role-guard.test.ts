@@ -1,0 +1,116 @@
+// Every protected page answers 403 to a gardener and sends a signed-out visitor to sign-in.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
+import { seedDemo } from '../../scripts/seed';
+import { baseUrl } from '../helpers/browser';
+
+const STAFF_ONLY = ['/nursery/stall'];
+const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
+const SIGNED_IN = ['/plants'];
+
+async function sessionCookie(email: string): Promise<string> {
+	const login = await fetch(`${baseUrl()}/login?/signin`, {
+		method: 'POST',
+		redirect: 'manual',
+		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl() },
+		body: new URLSearchParams({ email, password: DEMO_PASSWORD })
+	});
+	const cookie = login.headers.getSetCookie().find((c) => c.startsWith('bunchline_session='));
+	if (!cookie) throw new Error(`no session for ${email} (${login.status})`);
+	return cookie.split(';')[0];
+}
+
+const get = (path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, { redirect: 'manual', headers: cookie ? { cookie } : {} });
+const post = (path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method: 'POST',
+		redirect: 'manual',
+		headers: { 'content-type': 'application/x-www-form-urlencoded', accept: 'text/html', origin: baseUrl(), ...(cookie ? { cookie } : {}) },
+		body: new URLSearchParams({ email: 'someone@example.test', role: 'staff', userId: '1' })
+	});
+
+let gardener: string;
+let staff: string;
+let owner: string;
+
+beforeAll(async () => {
+	await seedDemo(process.env.DATABASE_URL!);
+	[owner, staff, gardener] = await Promise.all([
+		sessionCookie(DEMO_ACCOUNTS[0].email),
+		sessionCookie(DEMO_ACCOUNTS[1].email),
+		sessionCookie(DEMO_ACCOUNTS[3].email)
+	]);
+});
+afterAll(() => {});
+
+describe('signed out', () => {
+	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN]) {
+		it(`GET ${path} redirects to sign-in`, async () => {
+			const res = await get(path);
+			expect(res.status).toBe(303);
+			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+		});
+	}
+	it('POST to a team action redirects to sign-in and changes nothing', async () => {
+		const res = await post('/nursery/team?/invite');
+		expect(res.status).toBe(303);
+		expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+	});
+});
+
+describe('a gardener', () => {
+	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
+		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
+	}
+	for (const action of ['/nursery/team?/invite', '/nursery/team?/role']) {
+		it(`POST ${action} is 403`, async () => {
+			const res = await post(action, gardener);
+			expect(res.status).toBe(403);
+		});
+	}
+	it('cannot raise their own role', async () => {
+		const res = await fetch(`${baseUrl()}/nursery/team?/role`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl(), cookie: gardener },
+			body: new URLSearchParams({ userId: '4', role: 'owner' })
+		});
+		expect(res.status).toBe(403);
+		expect((await get('/nursery', gardener)).status).toBe(403);
+	});
+});
+
+describe('staff', () => {
+	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
+	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+});
+
+describe('the owner', () => {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
+	}
+});
+
+describe('cookies', () => {
+	it('the session cookie is HttpOnly and SameSite=Lax', async () => {
+		const login = await fetch(`${baseUrl()}/login?/signin`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl() },
+			body: new URLSearchParams({ email: DEMO_ACCOUNTS[4].email, password: DEMO_PASSWORD })
+		});
+		const cookie = login.headers.getSetCookie().find((c) => c.startsWith('bunchline_session='))!;
+		expect(cookie).toMatch(/HttpOnly/i);
+		expect(cookie).toMatch(/SameSite=Lax/i);
+	});
+	it('a cross-site form post is refused', async () => {
+		const res = await fetch(`${baseUrl()}/login?/signin`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example' },
+			body: new URLSearchParams({ email: 'a@b.test', password: 'x' })
+		});
+		expect(res.status).toBe(403);
+	});
+});
