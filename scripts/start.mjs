@@ -40,9 +40,10 @@ function step(label, cmd, args) {
 	}
 }
 
-step('Applying migrations…', 'npx', ['tsx', 'scripts/migrate.ts']);
-step('Seeding the demo scenario…', 'npx', ['tsx', 'scripts/seed.ts']);
-if (!dev) step('Building the app…', 'npx', ['vite', 'build', '--logLevel', 'warn']);
+step('Applying migrations…', 'node', ['--import', 'tsx', 'scripts/migrate.ts']);
+step('Seeding the demo scenario…', 'node', ['--import', 'tsx', 'scripts/seed.ts']);
+const VITE = 'node_modules/vite/bin/vite.js';
+if (!dev) step('Building the app…', 'node', [VITE, 'build', '--logLevel', 'warn']);
 
 const children = [];
 function launch(name, cmd, args) {
@@ -57,16 +58,25 @@ function launch(name, cmd, args) {
 }
 
 launch('mail service', 'node', ['scripts/mail-server.mjs']);
-launch('reminder worker', 'npx', ['tsx', 'scripts/worker.ts']);
-if (dev) launch('app', 'npx', ['vite', 'dev', '--host', host, '--port', String(port), '--strictPort']);
+// node --import tsx keeps the worker one process, so Ctrl-C reaches it directly.
+launch('reminder worker', 'node', ['--import', 'tsx', 'scripts/worker.ts']);
+if (dev) launch('app', 'node', [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort']);
 else launch('app', 'node', ['build/index.js']);
 
 let stopping = false;
 async function shutdown(code = 0) {
 	if (stopping) return;
 	stopping = true;
-	for (const c of children) c.kill('SIGTERM');
-	await new Promise((r) => setTimeout(r, 1500));
+	await Promise.all(
+		children.filter((c) => c.exitCode === null).map(
+			(c) =>
+				new Promise((r) => {
+					c.once('exit', r);
+					c.kill('SIGTERM');
+					setTimeout(() => (c.kill('SIGKILL'), r()), 8000);
+				})
+		)
+	);
 	if (ownsDatabase) cluster.stop();
 	console.log('Stopped.');
 	process.exit(code);

@@ -1,15 +1,12 @@
-import { eq } from 'drizzle-orm';
-import { db } from '../db';
-import { nurserySettings } from '../db/schema';
+import { nurseryRepository } from './repository';
 
-const FALLBACK = { name: 'Your nursery', town: 'your town', market: 'the market' };
+/** Shown before the owner has set the nursery up. */
+const UNNAMED = { name: 'Your nursery', town: 'your town', market: 'the market' };
 
 export const nurseryService = {
-	async settings() {
-		return (await db.select().from(nurserySettings).where(eq(nurserySettings.id, 1)))[0];
-	},
+	settings: () => nurseryRepository.settings(),
 	async publicProfile() {
-		const s = await this.settings();
-		return s ? { name: s.name, town: s.town, market: s.market } : FALLBACK;
+		const s = await nurseryRepository.settings();
+		return s ? { name: s.name, town: s.town, market: s.market } : UNNAMED;
 	}
 };
