@@ -2,6 +2,7 @@
 // cluster under .data/, start it on loopback, create the role and database. Idempotent.
 import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync, chmodSync, chownSync } from 'node:fs';
+import { createHash } from 'node:crypto';
 import { join, resolve } from 'node:path';
 
 const VERSION = '15';
@@ -44,14 +45,28 @@ export function ensureBinaries() {
 }
 
 /**
+ * The server runs as the postgres user, who must be able to walk every folder above the data.
+ * A checkout inside root's home is not walkable, so its cluster lives under /var/tmp instead.
+ */
+function reachableDir(dir, asPostgres) {
+	if (!asPostgres) return dir;
+	const project = resolve('.');
+	const ok = spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', project]).status === 0;
+	if (ok) return dir;
+	const tag = createHash('sha1').update(dir).digest('hex').slice(0, 10);
+	return `/var/tmp/bunchline-${tag}`;
+}
+
+/**
  * @param {{ dir: string, port: number, database: string, user?: string, password?: string, fast?: boolean }} o
  */
 export function cluster(o) {
 	const user = o.user ?? 'app';
 	const password = o.password ?? 'app';
-	const dataDir = resolve(o.dir, 'pg');
-	const sockDir = resolve(o.dir, 'sock');
 	const asPostgres = isRoot();
+	const baseDir = reachableDir(resolve(o.dir), asPostgres);
+	const dataDir = resolve(baseDir, 'pg');
+	const sockDir = resolve(baseDir, 'sock');
 	let bin;
 
 	function pgRun(tool, args) {
@@ -74,27 +89,28 @@ export function cluster(o) {
 		chmodSync(path, mode);
 	}
 
-	function isRunning() {
+	/** Lock files start with the owner's pid; a killed server can linger as a zombie (no init to reap it here). */
+	function lockOwnerAlive(lockFile) {
+		if (!existsSync(lockFile)) return false;
+		const pid = Number(readFileSync(lockFile, 'utf8').split('\n')[0]);
 		try {
-			pgRun('pg_ctl', ['-D', dataDir, 'status']);
-			return true;
+			const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+			return !/^\d+ \([^)]*\) Z/.test(stat) && readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('postgres');
 		} catch {
 			return false;
 		}
 	}
 
+	const pidFile = () => join(dataDir, 'postmaster.pid');
+	const socketLock = () => join(sockDir, `.s.PGSQL.${o.port}.lock`);
+	const postmasterAlive = () => lockOwnerAlive(pidFile());
+
+	function isRunning() {
+		return postmasterAlive();
+	}
+
 	function clearStalePid() {
-		const pidFile = join(dataDir, 'postmaster.pid');
-		if (!existsSync(pidFile)) return;
-		const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
-		let alive = false;
-		try {
-			process.kill(pid, 0);
-			alive = true;
-		} catch {
-			alive = false;
-		}
-		if (!alive) rmSync(pidFile);
+		for (const f of [pidFile(), socketLock()]) if (existsSync(f) && !lockOwnerAlive(f)) rmSync(f);
 	}
 
 	return {
@@ -102,7 +118,7 @@ export function cluster(o) {
 		adminUrl: `postgres://postgres@127.0.0.1:${o.port}/postgres`,
 		start() {
 			bin = ensureBinaries();
-			ensureDir(resolve(o.dir), 0o755);
+			ensureDir(baseDir, 0o755);
 			if (!existsSync(join(dataDir, 'PG_VERSION'))) {
 				ensureDir(dataDir, 0o700);
 				pgRun('initdb', ['-D', dataDir, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8']);
@@ -138,7 +154,7 @@ export function cluster(o) {
 		},
 		reset() {
 			this.stop();
-			rmSync(resolve(o.dir), { recursive: true, force: true });
+			rmSync(baseDir, { recursive: true, force: true });
 		}
 	};
 }
