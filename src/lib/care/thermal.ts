@@ -154,15 +154,21 @@ export function createThermalClock(monthlyMeanC: readonly number[], response: De
 		while (yearStart(year) > target) year--;
 		while (yearStart(year + 1) <= target) year++;
 		const prefix = isLeapYear(year) ? leapPrefix : commonPrefix;
-		const remainder = target - yearStart(year);
+		const start = yearStart(year);
 		let lo = 0;
 		let hi = prefix.length - 1;
 		while (lo < hi) {
 			const mid = (lo + hi) >> 1;
-			if (prefix[mid] >= remainder) hi = mid;
+			// Same sum as cumulativeAt, so a target read off the clock maps back to its own day.
+			if (start + prefix[mid] >= target) hi = mid;
 			else lo = mid + 1;
 		}
-		return epochDayFromCivil(year, 1, 1) + lo;
+		// Whole-year sums and in-year sums can disagree in the last bit; settle the answer on
+		// cumulativeAt itself so a stretch of zero-development days maps to its first day.
+		let day = epochDayFromCivil(year, 1, 1) + lo;
+		while (cumulativeAt(day - 1) >= target) day--;
+		while (cumulativeAt(day) < target) day++;
+		return day;
 	};
 
 	return {
