@@ -1,7 +1,11 @@
-import type { Handle } from '@sveltejs/kit';
+import { text, type Handle } from '@sveltejs/kit';
 import { validateSessionCookie } from '$lib/server/auth';
+import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
 
 export const handle: Handle = async ({ event, resolve }) => {
+	if (isForbiddenCrossSiteForm(event.request, event.url)) {
+		return text(`Cross-site ${event.request.method} form submissions are forbidden`, { status: 403 });
+	}
 	const { user, session } = await validateSessionCookie(event.cookies);
 	event.locals.user = user;
 	event.locals.session = session;

@@ -75,13 +75,15 @@ export function dailyMeanC(monthlyMeanC: readonly number[], month: number, day: 
 	const p1 = monthlyMeanC[i % 12];
 	const p2 = monthlyMeanC[(i + 1) % 12];
 	const p3 = monthlyMeanC[(i + 2) % 12];
-	return (
+	const spline =
 		0.5 *
 		(2 * p1 +
 			(p2 - p0) * t +
 			(2 * p0 - 5 * p1 + 4 * p2 - p3) * t * t +
-			(3 * p1 - p0 - 3 * p2 + p3) * t * t * t)
-	);
+			(3 * p1 - p0 - 3 * p2 + p3) * t * t * t);
+	// A spline overshoots between a cold and a hot month; past the optimum that would make a
+	// cooler garden develop faster. Kept between its two monthly means, it cannot.
+	return Math.min(Math.max(spline, Math.min(p1, p2)), Math.max(p1, p2));
 }
 
 /** Degree-days in each day of a year (365 or 366 entries). */

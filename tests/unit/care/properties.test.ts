@@ -57,6 +57,9 @@ function keyed(plan: Plan): Map<string, Step> {
 }
 
 const TIMEOUT = 300_000;
+// A fixed seed keeps CI repeatable; CARE_PROPERTY_SEED=random (or a number) explores further.
+const seedEnv = process.env.CARE_PROPERTY_SEED;
+fc.configureGlobal({ seed: seedEnv === 'random' ? Date.now() : Number(seedEnv ?? 20261201) });
 const RUNS = { numRuns: Number(process.env.CARE_PROPERTY_RUNS ?? 300) };
 
 describe('plan invariants (fast-check)', () => {
@@ -109,9 +112,11 @@ describe('plan invariants (fast-check)', () => {
 			{ numRuns: 100 }
 		);
 	}, TIMEOUT);
+	// Below about 1e-6 °C a "colder" climate differs only in floating-point rounding of the
+	// accumulated degree-days, which can move a date across a day boundary either way.
 	it('a colder climate (every month d ≥ 0 °C cooler) never makes any step earlier', () => {
 		fc.assert(
-			fc.property(planInput, fc.double({ min: 0, max: 6, noNaN: true }), (inp, d) => {
+			fc.property(planInput, fc.oneof(fc.constant(0), fc.double({ min: 1e-6, max: 6, noNaN: true })), (inp, d) => {
 				const colder = inp.climate.monthlyMeanC.map((t) => t - d);
 				fc.pre(annualThermalTime(colder) >= MIN_ANNUAL_DEGREE_DAYS);
 				const warm = keyed(computePlan(inp));

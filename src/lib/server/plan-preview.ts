@@ -1,0 +1,156 @@
+/**
+ * Plan preview: a parsed request (see $lib/schema/plan) → the engine's PlanInput → a plan,
+ * with the nursery's default feeding. No database: previews are for anyone, signed in or not.
+ */
+import {
+	climates,
+	computePlan,
+	cultivars,
+	defaultFeeding,
+	findClimate,
+	findCultivar,
+	referenceClimateSlug,
+	type Cultivar,
+	type Plan,
+	type PlanInput
+} from '$lib/care';
+import { CUSTOM_CLIMATE, planQuerySchema, planQueryString, queryValues, splitMeanValues, type PlanRequest, type QueryValues } from '$lib/schema/plan';
+import { fieldErrors, type FieldErrors } from '$lib/schema/form';
+import { formatDay } from '$lib/plan-text';
+import { planCalendar, type CalendarFile } from './calendar';
+import { UserFacingError } from './errors';
+
+export interface PlanPreview {
+	request: PlanRequest;
+	cultivar: Cultivar;
+	/** Human name of the climate: the profile's, or "your monthly means". */
+	climateName: string;
+	plan: Plan;
+}
+
+export function toPlanInput(request: PlanRequest): PlanInput {
+	const cultivar = findCultivar(request.cultivar);
+	if (!cultivar) throw new UserFacingError('cultivar', 'Unknown cultivar');
+	let monthlyMeanC: number[];
+	if (typeof request.climate === 'string') {
+		const profile = findClimate(request.climate);
+		if (!profile) throw new UserFacingError('climate', 'Unknown climate');
+		monthlyMeanC = profile.monthlyMeanC;
+	} else monthlyMeanC = request.climate.monthlyMeanC;
+	return {
+		cultivar,
+		plantedOn: request.plantedOn,
+		ageAtPlantingWeeks: request.ageAtPlantingWeeks,
+		climate: { monthlyMeanC },
+		units: request.units ?? 'metric',
+		feeding: defaultFeeding,
+		...(request.observed ? { observed: request.observed } : {})
+	};
+}
+
+export function previewPlan(request: PlanRequest): PlanPreview {
+	const input = toPlanInput(request);
+	const climateName = typeof request.climate === 'string' ? (findClimate(request.climate)?.name ?? request.climate) : 'your monthly means';
+	return { request, cultivar: input.cultivar, climateName, plan: computePlan(input) };
+}
+
+/**
+ * The preview as a calendar. Its identity is the plant (cultivar and planting day), not the
+ * climate or logged milestones, so refining those later updates the same events.
+ */
+export function previewCalendar(request: PlanRequest, origin?: string): CalendarFile {
+	const { cultivar, plan } = previewPlan(request);
+	const ics = planCalendar(plan, {
+		identity: `preview|${request.cultivar}|${request.plantedOn}`,
+		name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
+		...(origin ? { origin } : {})
+	});
+	return { filename: `bunchline-${request.cultivar}-${request.plantedOn}.ics`, ics };
+}
+
+/** Today in the server's calendar, as the planner's default planting date and "today" line. */
+export function todayIso(now: Date = new Date()): string {
+	return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+}
+
+/** What the planner shows before anyone has chosen: a plant of the first cultivar, bought today. */
+export function exampleRequest(today: string): PlanRequest {
+	return { cultivar: cultivars[0].slug, plantedOn: today, ageAtPlantingWeeks: 12, climate: referenceClimateSlug, units: 'metric' };
+}
+
+export const catalogue = { cultivars, climates };
+
+/** What the planner form shows in its inputs: always strings, always twelve months. */
+export interface PlannerValues {
+	cultivar: string;
+	plantedOn: string;
+	ageAtPlantingWeeks: string;
+	climate: string;
+	monthlyMeanC: string[];
+	units: string;
+	shotOn: string;
+	harvestedOn: string;
+}
+
+export interface PlannerView {
+	today: string;
+	values: PlannerValues;
+	errors: FieldErrors;
+	/** True when nothing was asked yet and an example plan is shown. */
+	example: boolean;
+	result: null | {
+		cultivarName: string;
+		climateName: string;
+		plantedOn: string;
+		plan: Plan;
+		/** Canonical query of the request, for the calendar links and sharing. */
+		query: string;
+	};
+	cultivarOptions: { slug: string; name: string }[];
+	climateOptions: { slug: string; name: string }[];
+}
+
+function formValues(raw: QueryValues): PlannerValues {
+	const means = splitMeanValues(raw.monthlyMeanC ?? []).map((v) => v.trim());
+	const climate = raw.climate ?? (means.length > 0 ? CUSTOM_CLIMATE : '');
+	// Switching to "my own means" starts from the chosen profile rather than twelve blanks.
+	const base = findClimate(climate)?.monthlyMeanC.map(String) ?? [];
+	return {
+		cultivar: raw.cultivar ?? '',
+		plantedOn: raw.plantedOn ?? '',
+		ageAtPlantingWeeks: raw.ageAtPlantingWeeks ?? '',
+		climate,
+		monthlyMeanC: Array.from({ length: 12 }, (_, i) => means[i] ?? base[i] ?? ''),
+		units: raw.units ?? 'metric',
+		shotOn: raw.shotOn ?? '',
+		harvestedOn: raw.harvestedOn ?? ''
+	};
+}
+
+/** The year planner page: the query string is the form, so every plan has a shareable URL. */
+export function plannerView(params: URLSearchParams, today = todayIso()): PlannerView {
+	const asked = queryValues(params);
+	const example = Object.keys(asked).length === 0;
+	const raw = example ? queryValues(new URLSearchParams(planQueryString(exampleRequest(today)))) : asked;
+	const parsed = planQuerySchema.safeParse(raw);
+	const base = {
+		today,
+		values: formValues(raw),
+		example,
+		cultivarOptions: cultivars.map(({ slug, name }) => ({ slug, name })),
+		climateOptions: climates.map(({ slug, name }) => ({ slug, name }))
+	};
+	if (!parsed.success) return { ...base, errors: fieldErrors(parsed.error), result: null };
+	const preview = previewPlan(parsed.data);
+	return {
+		...base,
+		errors: {},
+		result: {
+			cultivarName: preview.cultivar.name,
+			climateName: preview.climateName,
+			plantedOn: parsed.data.plantedOn,
+			plan: preview.plan,
+			query: planQueryString(parsed.data)
+		}
+	};
+}
