@@ -10,8 +10,16 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.user = user;
 	event.locals.session = session;
 	const response = await resolve(event);
+	// Only the HTML document carries the 400; the client router's data requests must stay 200.
+	if (event.locals.invalidInput && !event.isDataRequest && response.status === 200) {
+		return withHeaders(new Response(response.body, { status: 400, headers: response.headers }));
+	}
+	return withHeaders(response);
+};
+
+function withHeaders(response: Response): Response {
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Frame-Options', 'DENY');
 	return response;
-};
+}

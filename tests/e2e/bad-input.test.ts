@@ -40,7 +40,7 @@ const cases: { form: string; action: string; fields: Record<string, string>; fie
 	{ form: 'reset request', action: '/reset?/request', fields: { email: '' }, field: 'email', status: 400 },
 	{ form: 'reset', action: '/reset?/choose&token=' + token, fields: { token, password: 'short' }, field: 'password', status: 400 },
 	{ form: 'reset', action: '/reset?/choose&token=' + token, fields: { token, password: 'a valid new phrase' }, field: 'token', status: 410 },
-	{ form: 'invite acceptance', action: '/signup?/accept', fields: { token, name: 'A', password: 'a valid new phrase' }, field: 'token', status: 410 },
+	{ form: 'invite acceptance', action: `/signup?/accept&invite=${token}`, fields: { token, name: 'A', password: 'a valid new phrase' }, field: 'token', status: 410 },
 	{ form: 'invite', action: '/nursery/team?/invite', fields: { email: '', role: 'staff' }, field: 'email', status: 400, asOwner: true },
 	{ form: 'invite', action: '/nursery/team?/invite', fields: { email: 'n@example.test', role: 'emperor' }, field: 'role', status: 400, asOwner: true },
 	{ form: 'invite', action: '/nursery/team?/invite', fields: { email: DEMO_ACCOUNTS[5].email, role: 'staff' }, field: 'email', status: 409, asOwner: true },

@@ -2,4 +2,8 @@ import { plannerView } from '$lib/server/plan-preview';
 import type { PageServerLoad } from './$types';
 
 // Public: the year planner is the nursery's open tool; it reads only the query string and stores nothing.
-export const load: PageServerLoad = ({ url }) => plannerView(url.searchParams);
+export const load: PageServerLoad = ({ url, locals }) => {
+	const view = plannerView(url.searchParams);
+	if (Object.keys(view.errors).length > 0) locals.invalidInput = true;
+	return view;
+};

@@ -1,0 +1,64 @@
+import ICAL from 'ical.js';
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { baseUrl, expectAccessible, launch, newContext } from '../helpers/browser';
+
+let browser: Browser;
+beforeAll(async () => {
+	browser = await launch();
+});
+afterAll(async () => browser?.close());
+
+describe('the year planner', () => {
+	for (const viewport of [{ width: 1280, height: 900 }, { width: 390, height: 844 }]) {
+		it(`draws a plan, its feeding table and calendar links at ${viewport.width}px`, async () => {
+			const page = await (await newContext(browser, viewport)).newPage();
+			await page.goto('/planner');
+			await expectAccessible(page);
+			await page.getByLabel('Cultivar').selectOption({ index: 2 });
+			await page.getByLabel('Planting date').fill('2027-03-15');
+			await page.getByRole('button', { name: 'Show plan' }).click();
+			await page.waitForURL(/plantedOn=2027-03-15/);
+			await expect.poll(() => page.locator('svg[role="img"]').count()).toBeGreaterThan(0);
+			expect(await page.getByRole('table').count()).toBeGreaterThan(0);
+			await expectAccessible(page);
+
+			const ics = await page.getByRole('link', { name: /Download calendar/ }).getAttribute('href');
+			const res = await fetch(new URL(ics!, baseUrl()));
+			expect(res.status).toBe(200);
+			// RFC 5545 §3.6: the calendar parses and holds events.
+			const cal = new ICAL.Component(ICAL.parse(await res.text()));
+			expect(cal.getAllSubcomponents('vevent').length).toBeGreaterThan(10);
+		});
+	}
+
+	it('shows the reason beside the field for bad input', async () => {
+		const page = await (await newContext(browser)).newPage();
+		const res = await page.goto('/planner?cultivar=grand-nain&plantedOn=2027-02-30&ageAtPlantingWeeks=12&climate=south-florida-coast');
+		expect(res?.status()).toBe(400);
+		await expectAccessible(page);
+		expect(await page.locator('[aria-invalid="true"]').count()).toBeGreaterThan(0);
+	});
+});
+
+describe('the public API through the production server', () => {
+	it('answers a body that is not JSON with 400, also from another site with a form type', async () => {
+		for (const headers of [{ 'content-type': 'application/json' }, { 'content-type': 'text/plain', origin: 'http://elsewhere.example' }, {}]) {
+			const res = await fetch(`${baseUrl()}/api/v1/plan-preview`, { method: 'POST', headers, body: 'not json' });
+			expect(res.status).toBe(400);
+			const body = await res.json();
+			expect(body.error.message).toBeTruthy();
+			expect(Array.isArray(body.error.issues)).toBe(true);
+		}
+	});
+
+	it('names the field of an unknown cultivar', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/plan-preview`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json' },
+			body: JSON.stringify({ cultivar: 'no-such-banana', plantedOn: '2027-01-01', ageAtPlantingWeeks: 10, climate: 'south-florida-coast' })
+		});
+		expect(res.status).toBe(400);
+		expect((await res.json()).error.issues[0].path).toEqual(['cultivar']);
+	});
+});
