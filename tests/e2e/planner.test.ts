@@ -43,7 +43,8 @@ describe('the year planner', () => {
 
 describe('the public API through the production server', () => {
 	it('answers a body that is not JSON with 400, also from another site with a form type', async () => {
-		for (const headers of [{ 'content-type': 'application/json' }, { 'content-type': 'text/plain', origin: 'http://elsewhere.example' }, {}]) {
+		const variants: Record<string, string>[] = [{ 'content-type': 'application/json' }, { 'content-type': 'text/plain', origin: 'http://elsewhere.example' }, {}];
+		for (const headers of variants) {
 			const res = await fetch(`${baseUrl()}/api/v1/plan-preview`, { method: 'POST', headers, body: 'not json' });
 			expect(res.status).toBe(400);
 			const body = await res.json();

@@ -2,9 +2,10 @@
 // database for this run, migrates it, and drops it afterwards.
 import { cluster } from '../../scripts/pg.mjs';
 import { migrateDatabase } from '../../scripts/migrate';
+import { testPorts } from './ports';
 
 export default async function setup() {
-	const pg = cluster({ dir: '.data/test', port: Number(process.env.BUNCHLINE_TEST_PG_PORT ?? 54339), database: 'postgres', fast: true });
+	const pg = cluster({ dir: '.data/test', port: testPorts.postgres, database: 'postgres', fast: true });
 	pg.start();
 	const name = `bunchline_test_${process.pid}_${Date.now().toString(36)}`;
 	pg.createDatabase(name);
@@ -14,5 +15,6 @@ export default async function setup() {
 	process.env.BUNCHLINE_ENV = 'test';
 	return async () => {
 		pg.dropDatabase(name);
+		if (pg.startedHere) pg.stop();
 	};
 }

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startMailServer } from '../../scripts/mail-server.mjs';
+import { testPorts } from './ports';
 
 declare module 'vitest' {
 	export interface ProvidedContext {
@@ -12,7 +13,7 @@ declare module 'vitest' {
 }
 
 export default async function setup(project: TestProject) {
-	const port = Number(process.env.BUNCHLINE_TEST_SMTP_PORT ?? 2535) + (project.name === 'e2e' ? 1 : 0);
+	const port = testPorts.smtp + (project.name === 'e2e' ? 1 : 0);
 	const mailDir = mkdtempSync(join(tmpdir(), `bunchline-mail-${project.name}-`));
 	const server = await startMailServer({ port, dir: mailDir });
 	process.env.SMTP_PORT = String(port);

@@ -2,6 +2,7 @@
 // Runs after setup/database.ts and setup/mail.ts, so it inherits their DATABASE_URL and SMTP_PORT.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import type { TestProject } from 'vitest/node';
+import { testPorts } from './ports';
 
 declare module 'vitest' {
 	export interface ProvidedContext {
@@ -23,7 +24,7 @@ async function waitFor(url: string, ms: number) {
 }
 
 export default async function setup(project: TestProject) {
-	const port = Number(process.env.BUNCHLINE_E2E_PORT ?? 4183);
+	const port = testPorts.app;
 	const baseUrl = `http://127.0.0.1:${port}`;
 	if (!process.env.BUNCHLINE_SKIP_BUILD) {
 		const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error'], { stdio: 'inherit' });
