@@ -1,7 +1,7 @@
 // Seeds the demo scenario once. Idempotent: rows that exist are left as they are.
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
-import { referenceClimateSlug } from '../src/lib/care';
+import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
 import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
@@ -18,9 +18,9 @@ export async function seedDemo(url: string): Promise<void> {
 				units: 'metric',
 				timeZone: 'UTC',
 				defaultClimate: referenceClimateSlug,
-				fertilizerName: 'Kestrel Hollow banana mix 8-4-16',
-				npk: [8, 4, 16],
-				restrictedMonths: [],
+				fertilizerName: `Kestrel Hollow banana mix ${defaultFeeding.npk.join('-')}`,
+				npk: defaultFeeding.npk,
+				restrictedMonths: defaultFeeding.restrictedMonths,
 				demo: true
 			})
 			.onConflictDoNothing();

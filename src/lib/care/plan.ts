@@ -311,12 +311,23 @@ function budRemovalText(): StepText {
 	};
 }
 
-function harvestText(ctx: Context): StepText {
+/**
+ * The longest flower-to-harvest interval reported for cool subtropical growing areas, days
+ * (85–110 in the tropics, up to about 210 in cool subtropics; the figures this model was calibrated against).
+ */
+export const LONGEST_PUBLISHED_FILL_DAYS = 210;
+
+function harvestText(ctx: Context, fillDays: number): StepText {
+	const beyondRecords =
+		fillDays > LONGEST_PUBLISHED_FILL_DAYS
+			? ` Here the bunch fills through a cool season: about ${fillDays} days after flowering is longer than any reported for banana-growing areas (up to about ${LONGEST_PUBLISHED_FILL_DAYS}), so treat the date as a rough guide and go by the fruit.`
+			: '';
 	return {
 		title: 'Harvest the bunch',
 		detail:
 			'The bunch is ready when the fingers are plump, have filled out and lost their sharp angles, and the first ones are just starting to colour. ' +
-			`Cut the whole bunch (it can weigh ${massPhrase(ctx.cultivar.bunchMassKg.value, ctx.units)} or more).`,
+			`Cut the whole bunch (it can weigh ${massPhrase(ctx.cultivar.bunchMassKg.value, ctx.units)} or more).` +
+			beyondRecords,
 		cautions: cautions(CAUTION.blades, CAUTION.falling, CAUTION.sap)
 	};
 }
@@ -352,6 +363,7 @@ function stemRemovalText(): StepText {
 function lifeSteps(ctx: Context, life: Life): { steps: Step[]; end: EpochDay } {
 	const g = life.generation;
 	const harvest = windowOf(ctx, life.harvest, g);
+	const shooting = windowOf(ctx, life.shooting, g);
 	const cutBack: Window = { ...harvest, observed: false };
 	const stemRemoval = shiftWindow(cutBack, STEM_REMOVAL_AFTER_CUT_BACK_DAYS);
 	const steps = [
@@ -359,9 +371,9 @@ function lifeSteps(ctx: Context, life: Life): { steps: Step[]; end: EpochDay } {
 		step('thinning', g, windowOf(ctx, life.thinning, g), thinningText(g)),
 		step('division', g, windowOf(ctx, life.division, g), divisionText(ctx.units)),
 		step('flag-leaf', g, windowOf(ctx, life.flagLeaf, g), flagLeafText(g)),
-		step('shooting', g, windowOf(ctx, life.shooting, g), shootingText(g, ctx)),
+		step('shooting', g, shooting, shootingText(g, ctx)),
 		step('bud-removal', g, windowOf(ctx, life.budRemoval, g), budRemovalText()),
-		step('harvest', g, harvest, harvestText(ctx)),
+		step('harvest', g, harvest, harvestText(ctx, harvest.likely - shooting.likely)),
 		step('ripening', g, { ...harvest, observed: false }, ripeningText(ctx.units)),
 		step('cut-back', g, cutBack, cutBackText(ctx.units)),
 		step('stem-removal', g, stemRemoval, stemRemovalText())

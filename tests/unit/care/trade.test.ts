@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '../../../src/lib/care/plan';
+import { findClimate, findCultivar } from '../../../src/lib/care';
 import { days, input, months, only } from './helpers';
 
 const plan = computePlan(input());
@@ -142,5 +143,16 @@ describe('cautions on the steps they concern', () => {
 	});
 	it('every caution set defers to local rules and licensed practice', () => {
 		for (const s of plan.steps) if (s.cautions) expect(s.cautions).toContain('Defer to local rules and licensed practice.');
+	});
+});
+
+describe('a garden colder than the published records', () => {
+	// 85–110 days in the tropics, up to about 210 in cool subtropics (the published ranges the model is calibrated to).
+	it('says so on the harvest step instead of passing an extrapolation off as a record', () => {
+		const cool = computePlan({ cultivar: findCultivar('grand-nain')!, plantedOn: '2027-01-01', ageAtPlantingWeeks: 12, climate: findClimate('southern-california-coast')!, observed: { shotOn: '2027-09-01' } });
+		const harvest = cool.steps.find((s) => s.kind === 'harvest' && s.generation === 0)!;
+		expect(harvest.detail).toMatch(/longer than any reported/);
+		const warm = computePlan({ cultivar: findCultivar('grand-nain')!, plantedOn: '2027-01-01', ageAtPlantingWeeks: 12, climate: findClimate('humid-tropical-lowland')! });
+		expect(warm.steps.find((s) => s.kind === 'harvest')!.detail).not.toMatch(/longer than any reported/);
 	});
 });
