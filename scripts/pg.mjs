@@ -11,6 +11,11 @@ function run(cmd, args, opts = {}) {
 	return execFileSync(cmd, args, { stdio: ['ignore', 'pipe', 'pipe'], encoding: 'utf8', ...opts });
 }
 
+/** Whether something already listens on the loopback port (checked with bash's /dev/tcp, no extra tools). */
+export function portTaken(port) {
+	return spawnSync('bash', ['-c', `exec 3<>/dev/tcp/127.0.0.1/${port}`], { stdio: 'ignore' }).status === 0;
+}
+
 function isRoot() {
 	return typeof process.getuid === 'function' && process.getuid() === 0;
 }
@@ -128,6 +133,10 @@ export function cluster(o) {
 			ensureDir(sockDir, 0o755);
 			this.startedHere = !isRunning();
 			if (this.startedHere) {
+				if (portTaken(o.port)) {
+					console.error(`Port ${o.port} is taken by another server (another checkout's database?): stop it, or set BUNCHLINE_PG_PORT to a free port.`);
+					process.exit(1);
+				}
 				clearStalePid();
 				const opts = [`-c listen_addresses=127.0.0.1`, `-p ${o.port}`, `-k ${sockDir}`];
 				if (o.fast) opts.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
