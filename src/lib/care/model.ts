@@ -35,10 +35,11 @@ export const BUD_REMOVAL_AFTER_SHOOTING_DEGREE_DAYS = (14 / 365) * REFERENCE_YEA
 /**
  * Published flowering-to-harvest thermal times describe the commercial (export) harvest grade.
  * A home grower waits until the fingers are plump and just colouring, later than that grade;
- * 1.42 makes the reference cultivar ready about 4 months after a spring flower in the reference
- * climate (common practice, no source) and puts tropical lowland bunches at 85–110 days.
+ * 1.35 makes the reference cultivar ready about 4 months after the flower in the reference
+ * climate, averaged over the months it may flower in (common practice, no source; summer flowers
+ * fill faster, autumn ones slower), and puts tropical lowland bunches at 85–110 days.
  */
-export const HOME_RIPENESS_FACTOR = 1.42;
+export const HOME_RIPENESS_FACTOR = 1.35;
 
 /** Stem removal at ground level about 2 weeks after the cut-back (common practice, no source). */
 export const STEM_REMOVAL_AFTER_CUT_BACK_DAYS = 14;

