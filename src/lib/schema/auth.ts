@@ -15,10 +15,10 @@ export const PASSWORD_MIN = 8;
 export const PASSWORD_MAX = 128;
 
 export const emailField = z
-	.string({ error: 'Enter your e-mail address' })
+	.string({ error: 'Enter an e-mail address' })
 	.trim()
 	.toLowerCase()
-	.min(1, 'Enter your e-mail address')
+	.min(1, 'Enter an e-mail address')
 	.max(254, 'An e-mail address has at most 254 characters')
 	.pipe(z.email('Enter an e-mail address like name@example.com'));
 

@@ -148,13 +148,16 @@ export function splitMeanValues(values: string[]): string[] {
  */
 function fromQuery(raw: unknown): unknown {
 	const q = raw as QueryValues;
-	const custom = q.climate === undefined || q.climate.trim() === CUSTOM_CLIMATE;
-	const means = custom && q.monthlyMeanC?.some((v) => v.trim() !== '') ? splitMeanValues(q.monthlyMeanC).map(numberOrRaw) : undefined;
+	const chosenCustom = q.climate?.trim() === CUSTOM_CLIMATE;
+	const custom = q.climate === undefined || chosenCustom;
+	const typed = custom && q.monthlyMeanC?.some((v) => v.trim() !== '') ? splitMeanValues(q.monthlyMeanC).map(numberOrRaw) : undefined;
+	// "My own means" picked with none typed is reported beside the months, not the climate choice.
+	const means = typed ?? (chosenCustom ? [] : undefined);
 	return {
 		cultivar: blank(q.cultivar),
 		plantedOn: blank(q.plantedOn),
 		ageAtPlantingWeeks: numberOrRaw(q.ageAtPlantingWeeks),
-		// A custom climate with no means at all is reported once, beside the climate choice.
+		// Neither a climate nor any means: reported once, beside the climate choice.
 		climate: custom ? (means ? undefined : '') : q.climate,
 		monthlyMeanC: means,
 		units: blank(q.units),

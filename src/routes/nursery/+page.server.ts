@@ -5,6 +5,6 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireUser(event, 'owner');
-	const [[, people], profile] = await Promise.all([accounts.listTeam(1, 0), nurseryService.publicProfile()]);
+	const [people, profile] = await Promise.all([accounts.countTeam(), nurseryService.publicProfile()]);
 	return { people, profile };
 };

@@ -140,6 +140,7 @@ export const accounts = {
 		if (input.userId !== actingUserId) await endAllSessions(input.userId);
 	},
 
-	listTeam: (limit: number, offset: number) => Promise.all([repo.listUsers(limit, offset), repo.countUsers()]),
+	listTeamPage: (limit: number, offset: number) => repo.listUsers(limit, offset),
+	countTeam: () => repo.countUsers(),
 	listOpenInvitations: (now = new Date()) => repo.listOpenInvitations(now)
 };

@@ -7,8 +7,11 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const me = requireUser(event, 'owner');
-	const { page, size } = pageQuery(event.url);
-	const [[people, total], invitations] = await Promise.all([accounts.listTeam(size, (page - 1) * size), accounts.listOpenInvitations()]);
+	const { size, ...asked } = pageQuery(event.url);
+	const total = await accounts.countTeam();
+	// A page past the end shows the last page rather than an empty table.
+	const page = Math.min(asked.page, Math.max(1, Math.ceil(total / size)));
+	const [people, invitations] = await Promise.all([accounts.listTeamPage(size, (page - 1) * size), accounts.listOpenInvitations()]);
 	return { people, total, page, size, invitations, meId: me.id };
 };
 
