@@ -28,6 +28,8 @@ export const accountsRepository = {
 
 	countUsers: async () => (await db.select({ n: count() }).from(users))[0]?.n ?? 0,
 
+	countByRole: () => db.select({ role: users.role, n: count() }).from(users).groupBy(users.role),
+
 	countOwners: async (c: Conn = db) => (await c.select({ n: count() }).from(users).where(eq(users.role, 'owner')))[0]?.n ?? 0,
 
 	insertToken: (values: typeof emailTokens.$inferInsert, c: Conn = db) => c.insert(emailTokens).values(values),

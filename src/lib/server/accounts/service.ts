@@ -142,5 +142,10 @@ export const accounts = {
 
 	listTeamPage: (limit: number, offset: number) => repo.listUsers(limit, offset),
 	countTeam: () => repo.countUsers(),
+	async countByRole(): Promise<Record<Role, number>> {
+		const counts: Record<Role, number> = { owner: 0, staff: 0, gardener: 0 };
+		for (const row of await repo.countByRole()) counts[row.role] = row.n;
+		return counts;
+	},
 	listOpenInvitations: (now = new Date()) => repo.listOpenInvitations(now)
 };
