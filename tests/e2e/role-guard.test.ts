@@ -1,4 +1,6 @@
 // Every protected page answers 403 to a gardener and sends a signed-out visitor to sign-in.
+import { readdirSync, readFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
@@ -30,6 +32,19 @@ const post = (path: string, cookie?: string) =>
 		body: new URLSearchParams({ email: 'someone@example.test', role: 'staff', userId: '1' })
 	});
 
+/** Route paths whose server files call the guard, e.g. "/nursery/team" or "/dev/mail/[file]". */
+function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
+	return readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
+		const p = join(dir, e.name);
+		if (e.isDirectory()) return guardedRoutes(p);
+		if (!/^\+(page|layout)\.server\.ts$|^\+server\.ts$/.test(e.name) || !readFileSync(p, 'utf8').includes('requireUser(')) return [];
+		return ['/' + relative(join(process.cwd(), 'src/routes'), dir).replaceAll('\\', '/')].map((r) => (r === '/' ? r : r.replace(/\/$/, '')));
+	});
+}
+
+const asTested = (route: string) => route.replace('[file]', 'x.eml');
+const SIGN_OUT = '/logout';
+
 let gardener: string;
 let staff: string;
 let owner: string;
@@ -44,8 +59,15 @@ beforeAll(async () => {
 });
 afterAll(() => {});
 
+describe('coverage', () => {
+	it('every guarded route in src/routes is exercised below', () => {
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]);
+		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
+	});
+});
+
 describe('signed out', () => {
-	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN]) {
+	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]) {
 		it(`GET ${path} redirects to sign-in`, async () => {
 			const res = await get(path);
 			expect(res.status).toBe(303);
