@@ -5,7 +5,12 @@ const db = demoCluster();
 const command = process.argv[2] ?? 'status';
 switch (command) {
 	case 'start':
-		console.log(`PostgreSQL running: ${db.start()}`);
+		try {
+			console.log(`PostgreSQL running: ${db.start()}`);
+		} catch (e) {
+			console.error(e instanceof Error ? e.message : e);
+			process.exit(1);
+		}
 		break;
 	case 'stop':
 		db.stop();

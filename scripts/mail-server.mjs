@@ -2,6 +2,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { SMTPServer } from 'smtp-server';
+import { isMainModule } from './main-module.mjs';
 
 export function startMailServer({ port = 2525, dir = 'dev-mail' } = {}) {
 	const out = resolve(dir);
@@ -28,7 +29,7 @@ export function startMailServer({ port = 2525, dir = 'dev-mail' } = {}) {
 	});
 }
 
-if (import.meta.url === `file://${process.argv[1]}`) {
+if (isMainModule(import.meta.url)) {
 	const port = Number(process.env.SMTP_PORT ?? 2525);
 	const dir = process.env.MAIL_DIR ?? 'dev-mail';
 	await startMailServer({ port, dir });

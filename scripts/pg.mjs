@@ -4,6 +4,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync, chmodSync, chownSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { join, resolve } from 'node:path';
+import { ensureDebianPackage, isRoot } from './apt.mjs';
 
 const VERSION = '15';
 
@@ -14,10 +15,6 @@ function run(cmd, args, opts = {}) {
 /** Whether something already listens on the loopback port (checked with bash's /dev/tcp, no extra tools). */
 export function portTaken(port) {
 	return spawnSync('bash', ['-c', `exec 3<>/dev/tcp/127.0.0.1/${port}`], { stdio: 'ignore' }).status === 0;
-}
-
-function isRoot() {
-	return typeof process.getuid === 'function' && process.getuid() === 0;
 }
 
 export function findBinDir() {
@@ -31,22 +28,8 @@ export function findBinDir() {
 }
 
 export function ensureBinaries() {
-	let bin = findBinDir();
-	if (bin) return bin;
-	if (!isRoot()) {
-		console.error(`PostgreSQL ${VERSION} server is missing: run "sudo apt-get install -y postgresql" and try again.`);
-		process.exit(1);
-	}
-	console.log(`Installing PostgreSQL ${VERSION} from Debian's packages…`);
-	const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-	spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-	const r = spawnSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env });
-	bin = findBinDir();
-	if (r.status !== 0 || !bin) {
-		console.error('Could not install PostgreSQL: run "apt-get install -y postgresql" and try again.');
-		process.exit(1);
-	}
-	return bin;
+	ensureDebianPackage('postgresql', `The PostgreSQL ${VERSION} server`, () => findBinDir() !== undefined);
+	return findBinDir();
 }
 
 /**
@@ -134,8 +117,7 @@ export function cluster(o) {
 			this.startedHere = !isRunning();
 			if (this.startedHere) {
 				if (portTaken(o.port)) {
-					console.error(`Port ${o.port} is taken by another server (another checkout's database?): stop it, or set BUNCHLINE_PG_PORT to a free port.`);
-					process.exit(1);
+					throw new Error(`Port ${o.port} is taken by another server (another checkout's database?): stop it, or set BUNCHLINE_PG_PORT to a free port.`);
 				}
 				clearStalePid();
 				const opts = [`-c listen_addresses=127.0.0.1`, `-p ${o.port}`, `-k ${sockDir}`];

@@ -1,6 +1,7 @@
 // Seeds the demo scenario once. Idempotent: rows that exist are left as they are.
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
+import { isMainModule } from './main-module.mjs';
 import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
@@ -35,7 +36,7 @@ export async function seedDemo(url: string): Promise<void> {
 	}
 }
 
-if (import.meta.url === `file://${process.argv[1]}`) {
+if (isMainModule(import.meta.url)) {
 	const url = process.env.DATABASE_URL;
 	if (!url) throw new Error('DATABASE_URL is not set');
 	await seedDemo(url);

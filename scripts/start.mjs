@@ -1,27 +1,57 @@
 // npm start: PostgreSQL, migrations, demo seed, fake mail service, app and reminder worker.
-// npm run dev: the same with vite's hot reload. Ctrl-C stops everything started here.
+// npm run dev: the same with vite's hot reload. Ctrl-C stops everything started here, and only that.
 import { spawn, spawnSync } from 'node:child_process';
-import { demoCluster } from './pg.mjs';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo.mjs';
+import { demoCluster } from './pg.mjs';
 
 const dev = process.argv.includes('--dev');
 const host = '127.0.0.1';
 const port = Number(process.env.PORT ?? (dev ? 5173 : 4173));
 const url = `http://${host}:${port}`;
-const smtpPort = process.env.SMTP_PORT ?? '2525';
+const VITE = 'node_modules/vite/bin/vite.js';
 
 const cluster = demoCluster();
-const databaseUrl = process.env.DATABASE_URL ?? cluster.url;
 const ownsDatabase = !process.env.DATABASE_URL;
+const children = [];
+let stopping = false;
+
+/** Stops the children, then the database if this run started it (a cluster already running is left alone). */
+async function shutdown(code = 0) {
+	if (stopping) return;
+	stopping = true;
+	await Promise.all(
+		children
+			.filter((c) => c.exitCode === null && c.signalCode === null)
+			.map(
+				(c) =>
+					new Promise((done) => {
+						c.once('exit', done);
+						c.kill('SIGTERM');
+						setTimeout(() => (c.kill('SIGKILL'), done()), 8000);
+					})
+			)
+	);
+	if (ownsDatabase && cluster.startedHere) cluster.stop();
+	console.log('Stopped.');
+	process.exit(code);
+}
+// Installed before anything starts, so Ctrl-C during the build also stops the database.
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => shutdown(0));
+
 if (ownsDatabase) {
 	console.log('Starting PostgreSQL…');
-	cluster.start();
+	try {
+		cluster.start();
+	} catch (e) {
+		console.error(e instanceof Error ? e.message : e);
+		process.exit(1);
+	}
 }
 
 const env = {
 	...process.env,
-	DATABASE_URL: databaseUrl,
-	SMTP_PORT: smtpPort,
+	DATABASE_URL: process.env.DATABASE_URL ?? cluster.url,
+	SMTP_PORT: process.env.SMTP_PORT ?? '2525',
 	MAIL_DIR: process.env.MAIL_DIR ?? 'dev-mail',
 	BUNCHLINE_ENV: process.env.BUNCHLINE_ENV ?? (dev ? 'development' : 'demo'),
 	ORIGIN: url,
@@ -30,61 +60,40 @@ const env = {
 	PORT: String(port)
 };
 
-function step(label, cmd, args) {
+function step(label, args) {
+	if (stopping) return;
 	console.log(label);
-	const r = spawnSync(cmd, args, { stdio: 'inherit', env });
+	const r = spawnSync('node', args, { stdio: 'inherit', env });
 	if (r.status !== 0) {
-		console.error(`${label.replace(/…$/, '')} failed`);
-		if (ownsDatabase) cluster.stop();
-		process.exit(r.status ?? 1);
+		console.error(`${label.replace(/…$/, '')} ${r.signal ? `stopped by ${r.signal}` : 'failed'}`);
+		shutdown(r.status ?? 1);
 	}
 }
 
-step('Applying migrations…', 'node', ['--import', 'tsx', 'scripts/migrate.ts']);
-step('Seeding the demo scenario…', 'node', ['--import', 'tsx', 'scripts/seed.ts']);
-const VITE = 'node_modules/vite/bin/vite.js';
-if (!dev) step('Building the app…', 'node', [VITE, 'build', '--logLevel', 'warn']);
+step('Applying migrations…', ['--import', 'tsx', 'scripts/migrate.ts']);
+step('Seeding the demo scenario…', ['--import', 'tsx', 'scripts/seed.ts']);
+if (!dev) step('Building the app…', [VITE, 'build', '--logLevel', 'warn']);
 
-const children = [];
-function launch(name, cmd, args) {
-	const child = spawn(cmd, args, { stdio: 'inherit', env });
-	child.on('exit', (code, signal) => {
-		if (!stopping) {
-			console.error(`${name} stopped (${signal ?? code}); shutting down`);
-			shutdown(1);
-		}
-	});
+function launch(name, args) {
+	if (stopping) return;
+	const child = spawn('node', args, { stdio: 'inherit', env });
+	const fail = (why) => {
+		if (stopping) return;
+		console.error(`${name} ${why}; shutting down`);
+		shutdown(1);
+	};
+	child.on('error', (e) => fail(`could not start (${e.message})`));
+	child.on('exit', (code, signal) => fail(`stopped (${signal ?? code})`));
 	children.push(child);
 }
 
-launch('mail service', 'node', ['scripts/mail-server.mjs']);
-// node --import tsx keeps the worker one process, so Ctrl-C reaches it directly.
-launch('reminder worker', 'node', ['--import', 'tsx', 'scripts/worker.ts']);
-if (dev) launch('app', 'node', [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort']);
-else launch('app', 'node', ['build/index.js']);
-
-let stopping = false;
-async function shutdown(code = 0) {
-	if (stopping) return;
-	stopping = true;
-	await Promise.all(
-		children.filter((c) => c.exitCode === null).map(
-			(c) =>
-				new Promise((r) => {
-					c.once('exit', r);
-					c.kill('SIGTERM');
-					setTimeout(() => (c.kill('SIGKILL'), r()), 8000);
-				})
-		)
-	);
-	if (ownsDatabase) cluster.stop();
-	console.log('Stopped.');
-	process.exit(code);
-}
-process.on('SIGINT', () => shutdown(0));
-process.on('SIGTERM', () => shutdown(0));
+launch('mail service', ['scripts/mail-server.mjs']);
+// node --import tsx keeps the worker one process, so the stop signal reaches it directly.
+launch('reminder worker', ['--import', 'tsx', 'scripts/worker.ts']);
+launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['build/index.js']);
 
 setTimeout(() => {
+	if (stopping) return;
 	console.log(`\nBunchline is running at ${url}`);
 	console.log(`Captured e-mail: ${url}/dev/mail (sign in as the owner) and ${env.MAIL_DIR}/`);
 	console.log(`Demo accounts (password "${DEMO_PASSWORD}"):`);

@@ -2,25 +2,12 @@
 // and end-to-end tests in Debian's chromium against a production build. Stops at the first failure.
 import { existsSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
+import { ensureDebianPackage } from './apt.mjs';
 import { ensureBinaries } from './pg.mjs';
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-function ensureChromium() {
-	if (existsSync(CHROMIUM)) return;
-	if (process.getuid?.() !== 0) {
-		console.error('Chromium is missing: run "sudo apt-get install -y chromium" and try again.');
-		process.exit(1);
-	}
-	console.log("Installing chromium from Debian's packages…");
-	const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-	spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-	const r = spawnSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env });
-	if (r.status !== 0 || !existsSync(CHROMIUM)) {
-		console.error('Could not install chromium: run "apt-get install -y chromium" and try again.');
-		process.exit(1);
-	}
-}
+const ensureChromium = () => ensureDebianPackage('chromium', 'Chromium', () => existsSync(CHROMIUM));
 
 const stages = [
 	['svelte-kit sync', ['svelte-kit', 'sync']],
@@ -30,9 +17,10 @@ const stages = [
 	['end-to-end tests', ['vitest', 'run', '--project', 'e2e']]
 ];
 
-ensureBinaries();
-ensureChromium();
 const only = process.argv[2];
+// Only the stages that need them install PostgreSQL and Chromium.
+if (!only || /^(integration|end)/.test(only)) ensureBinaries();
+if (!only || only.startsWith('end')) ensureChromium();
 for (const [label, args] of stages) {
 	if (only && !label.startsWith(only)) continue;
 	console.log(`\n== ${label} ==`);

@@ -1,6 +1,7 @@
 // The reminder worker: a pg-boss consumer, safe to run as many copies as needed.
 // Reminders themselves arrive with the plant pages; for now it keeps the queue ready.
 import PgBoss from 'pg-boss';
+import { isMainModule } from './main-module.mjs';
 
 export const REMINDER_QUEUE = 'reminders';
 
@@ -15,7 +16,7 @@ export async function startWorker(url: string): Promise<PgBoss> {
 	return boss;
 }
 
-if (import.meta.url === `file://${process.argv[1]}`) {
+if (isMainModule(import.meta.url)) {
 	const url = process.env.DATABASE_URL;
 	if (!url) throw new Error('DATABASE_URL is not set');
 	const boss = await startWorker(url);

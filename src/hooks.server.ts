@@ -1,6 +1,14 @@
-import { text, type Handle } from '@sveltejs/kit';
+import { text, type Handle, type ServerInit } from '@sveltejs/kit';
 import { validateSessionCookie } from '$lib/server/auth';
+import { config } from '$lib/server/config';
 import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
+
+/** In production, e-mailed links and the origin check need the public URL: refuse to start without it. */
+export const init: ServerInit = () => {
+	if (config.mode === 'production' && !process.env.ORIGIN && !process.env.PUBLIC_URL) {
+		throw new Error('Set ORIGIN to the public URL of this site (for example ORIGIN=https://plants.example.org)');
+	}
+};
 
 export const handle: Handle = async ({ event, resolve }) => {
 	if (isForbiddenCrossSiteForm(event.request, event.url)) {

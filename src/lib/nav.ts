@@ -27,7 +27,20 @@ export function navFor(role: Role | null): NavLink[] {
 /** Where each role lands after signing in. */
 export const HOME_FOR: Record<Role, string> = { gardener: '/plants', staff: '/nursery/stall', owner: '/nursery' };
 
-/** Only same-site paths are followed after sign-in (no open redirect). */
+const PROBE_ORIGIN = 'http://same-site.invalid';
+
+/**
+ * Only same-site paths are followed after sign-in (no open redirect). The path is resolved the
+ * way a browser would — which drops tabs and newlines and reads "\\" as "/" — and kept only if
+ * it stays on this site; control characters are refused outright, since they are not valid in
+ * a Location header either.
+ */
 export function safeNext(next: string | null, fallback: string): string {
-	return next && next.startsWith('/') && !next.startsWith('//') && !next.startsWith('/\\') ? next : fallback;
+	if (!next || !next.startsWith('/') || /[\u0000-\u001f\u007f\\]/.test(next)) return fallback;
+	try {
+		const url = new URL(next, PROBE_ORIGIN);
+		return url.origin === PROBE_ORIGIN ? url.pathname + url.search + url.hash : fallback;
+	} catch {
+		return fallback;
+	}
 }

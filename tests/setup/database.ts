@@ -8,13 +8,20 @@ export default async function setup() {
 	const pg = cluster({ dir: '.data/test', port: testPorts.postgres, database: 'postgres', fast: true });
 	pg.start();
 	const name = `bunchline_test_${process.pid}_${Date.now().toString(36)}`;
-	pg.createDatabase(name);
-	const url = pg.url.replace(/\/postgres$/, `/${name}`);
-	await migrateDatabase(url);
-	process.env.DATABASE_URL = url;
-	process.env.BUNCHLINE_ENV = 'test';
-	return async () => {
+	const teardown = async () => {
 		pg.dropDatabase(name);
 		if (pg.startedHere) pg.stop();
 	};
+	try {
+		pg.createDatabase(name);
+		const url = pg.url.replace(/\/postgres$/, `/${name}`);
+		await migrateDatabase(url);
+		process.env.DATABASE_URL = url;
+		process.env.BUNCHLINE_ENV = 'test';
+	} catch (e) {
+		// vitest skips the teardown of a setup that failed: leave nothing running.
+		await teardown();
+		throw e;
+	}
+	return teardown;
 }

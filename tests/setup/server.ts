@@ -10,40 +10,49 @@ declare module 'vitest' {
 	}
 }
 
-async function waitFor(url: string, ms: number) {
-	const until = Date.now() + ms;
-	while (Date.now() < until) {
-		try {
-			if ((await fetch(url)).ok) return;
-		} catch {
-			/* not up yet */
-		}
-		await new Promise((r) => setTimeout(r, 250));
-	}
-	throw new Error(`server at ${url} did not start`);
+/** Resolves once the server answers; rejects at once if it exits first. */
+function waitForServer(server: ChildProcess, url: string, ms: number): Promise<void> {
+	return new Promise((resolve, reject) => {
+		const until = Date.now() + ms;
+		server.once('exit', (code) => reject(new Error(`the app exited (${code}) before answering`)));
+		const poll = async () => {
+			try {
+				if ((await fetch(url)).ok) return resolve();
+			} catch {
+				/* not up yet */
+			}
+			if (Date.now() > until) return reject(new Error(`server at ${url} did not start`));
+			setTimeout(poll, 250);
+		};
+		poll();
+	});
+}
+
+function stop(server: ChildProcess): Promise<void> {
+	if (server.exitCode !== null || server.signalCode !== null) return Promise.resolve();
+	return new Promise((resolve) => {
+		server.once('exit', () => resolve());
+		server.kill('SIGTERM');
+		setTimeout(() => server.kill('SIGKILL'), 5000);
+	});
 }
 
 export default async function setup(project: TestProject) {
-	const port = testPorts.app;
-	const baseUrl = `http://127.0.0.1:${port}`;
+	const baseUrl = `http://127.0.0.1:${testPorts.app}`;
 	if (!process.env.BUNCHLINE_SKIP_BUILD) {
-		const build = spawnSync('npx', ['vite', 'build', '--logLevel', 'error'], { stdio: 'inherit' });
+		const build = spawnSync('node', ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'error'], { stdio: 'inherit' });
 		if (build.status !== 0) throw new Error('vite build failed');
 	}
-	const server: ChildProcess = spawn('node', ['build/index.js'], {
+	const server = spawn('node', ['build/index.js'], {
 		stdio: ['ignore', 'inherit', 'inherit'],
-		env: {
-			...process.env,
-			HOST: '127.0.0.1',
-			PORT: String(port),
-			ORIGIN: baseUrl,
-			PUBLIC_URL: baseUrl,
-			BUNCHLINE_ENV: 'test'
-		}
+		env: { ...process.env, HOST: '127.0.0.1', PORT: String(testPorts.app), ORIGIN: baseUrl, PUBLIC_URL: baseUrl, BUNCHLINE_ENV: 'test' }
 	});
-	await waitFor(baseUrl, 30_000);
+	try {
+		await waitForServer(server, baseUrl, 30_000);
+	} catch (e) {
+		await stop(server);
+		throw e;
+	}
 	project.provide('baseUrl', baseUrl);
-	return async () => {
-		server.kill('SIGTERM');
-	};
+	return () => stop(server);
 }

@@ -47,6 +47,8 @@ export const tokenField = z
 	.string({ error: 'This link is incomplete' })
 	.regex(/^[a-z2-7]{32}$/, 'This link is not valid: request a new one');
 
+export const verifySchema = z.object({ token: tokenField });
+
 export const resetSchema = z.object({ token: tokenField, password: newPasswordField });
 
 export const inviteSchema = z.object({ email: emailField, role: z.enum(['staff', 'owner'], { error: 'Choose staff or owner' }) });

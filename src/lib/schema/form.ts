@@ -23,13 +23,16 @@ export function formToObject(data: FormData): Record<string, string | string[]> 
 	return out;
 }
 
+/** Secrets are never echoed back into a form. */
+export function echoable(raw: Record<string, string | string[]>): Record<string, string | string[]> {
+	return Object.fromEntries(Object.entries(raw).filter(([k]) => !/password|token/i.test(k)));
+}
+
 export type Parsed<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors; values: Record<string, unknown> };
 
-export function parseForm<S extends z.ZodType>(schema: S, data: FormData, keepBack: string[] = []): Parsed<z.infer<S>> {
+export function parseForm<S extends z.ZodType>(schema: S, data: FormData): Parsed<z.infer<S>> {
 	const raw = formToObject(data);
 	const result = schema.safeParse(raw);
 	if (result.success) return { ok: true, data: result.data };
-	// Secrets are never echoed back into the form.
-	const values = Object.fromEntries(Object.entries(raw).filter(([k]) => !/password|token/i.test(k) || keepBack.includes(k)));
-	return { ok: false, errors: fieldErrors(result.error), values };
+	return { ok: false, errors: fieldErrors(result.error), values: echoable(raw) };
 }

@@ -99,7 +99,19 @@ function observationIssues(plantedOn: IsoDate, observed: PlanRequest['observed']
 	if (shotOn && shotOn < plantedOn) issues.push({ field: 'shotOn', message: 'Shooting cannot come before planting' });
 	if (harvestedOn && harvestedOn < plantedOn) issues.push({ field: 'harvestedOn', message: 'Harvest cannot come before planting' });
 	else if (harvestedOn && shotOn && harvestedOn < shotOn) issues.push({ field: 'harvestedOn', message: 'Harvest cannot come before shooting' });
+	// A mother plant's whole life is well under this; later dates are typing errors, and would make a plan centuries long.
+	const latest = addYears(plantedOn, OBSERVED_WITHIN_YEARS);
+	for (const field of ['shotOn', 'harvestedOn'] as const) {
+		const day = observed?.[field];
+		if (day && day > latest) issues.push({ field, message: `Give a date within ${OBSERVED_WITHIN_YEARS} years of planting` });
+	}
 	return issues;
+}
+
+const OBSERVED_WITHIN_YEARS = 5;
+
+function addYears(iso: IsoDate, years: number): IsoDate {
+	return `${String(Number(iso.slice(0, 4)) + years).padStart(4, '0')}${iso.slice(4)}`;
 }
 
 const observedBody = z

@@ -30,9 +30,13 @@ export function parseMail(file: string, raw: string): CapturedMail {
 
 export async function listMail(dir = config.mailDir, limit = 200): Promise<CapturedMail[]> {
 	const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => SAFE_NAME.test(n));
-	const withTimes = await Promise.all(names.map(async (n) => ({ n, t: (await stat(join(dir, n))).mtimeMs })));
+	// A message removed while the folder is read is skipped, not an error.
+	const withTimes = (await Promise.all(names.map(async (n) => ({ n, t: (await stat(join(dir, n)).catch(() => null))?.mtimeMs })))).filter(
+		(e): e is { n: string; t: number } => e.t !== undefined
+	);
 	withTimes.sort((a, b) => b.t - a.t || b.n.localeCompare(a.n));
-	return Promise.all(withTimes.slice(0, limit).map(async ({ n }) => parseMail(n, await readFile(join(dir, n), 'utf8'))));
+	const mails = await Promise.all(withTimes.slice(0, limit).map(({ n }) => readMail(n, dir)));
+	return mails.filter((m): m is CapturedMail => m !== null);
 }
 
 export async function readMail(file: string, dir = config.mailDir): Promise<CapturedMail | null> {

@@ -3,7 +3,7 @@ export class UserFacingError extends Error {
 	constructor(
 		public field: string,
 		message: string,
-		public status: 400 | 403 | 404 | 409 | 410 | 429 = 400
+		public status: 400 | 403 | 404 | 409 | 410 | 429 | 503 = 400
 	) {
 		super(message);
 	}

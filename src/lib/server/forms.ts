@@ -1,6 +1,6 @@
 import { fail } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { parseForm } from '../schema/form';
+import { echoable, formToObject, parseForm } from '../schema/form';
 import { UserFacingError } from './errors';
 
 /**
@@ -19,8 +19,7 @@ export async function runForm<S extends z.ZodType, R>(
 		return { result: await work(parsed.data) };
 	} catch (e) {
 		if (e instanceof UserFacingError) {
-			const values = Object.fromEntries([...form.entries()].filter(([k, v]) => typeof v === 'string' && !/password|token/i.test(k)));
-			return { failure: fail(e.status, { errors: { [e.field]: e.message }, values }) };
+			return { failure: fail(e.status, { errors: { [e.field]: e.message }, values: echoable(formToObject(form)) }) };
 		}
 		throw e;
 	}

@@ -19,4 +19,5 @@ export async function sendMail(m: Message): Promise<string> {
 	return info.messageId;
 }
 
-export const absoluteUrl = (path: string, origin = config.publicUrl) => new URL(path, origin).toString();
+/** Links in e-mail always use the configured public URL, never the request's Host header. */
+export const absoluteUrl = (path: string) => new URL(path, config.publicUrl).toString();

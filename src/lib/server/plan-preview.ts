@@ -1,6 +1,6 @@
 /**
  * Plan preview: a parsed request (see $lib/schema/plan) → the engine's PlanInput → a plan,
- * with the nursery's default feeding. No database: previews are for anyone, signed in or not.
+ * with the engine's default feeding (`defaultFeeding`, which the demo nursery's settings match). No database: previews are for anyone, signed in or not.
  */
 import {
 	climates,

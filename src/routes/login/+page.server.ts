@@ -21,8 +21,8 @@ export const actions: Actions = {
 		redirect(303, safeNext(url.searchParams.get('next'), HOME_FOR[user.role]));
 	},
 	// Public: a new verification link for an account that has not confirmed its e-mail.
-	resend: async ({ request, url }) => {
-		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.resendVerification(d.email, url.origin));
+	resend: async ({ request }) => {
+		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.resendVerification(d.email));
 		return failure ?? { resent: true };
 	}
 };

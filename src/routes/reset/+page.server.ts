@@ -9,8 +9,8 @@ export const load: PageServerLoad = ({ url }) => ({ token: url.searchParams.get(
 
 export const actions: Actions = {
 	// Public: anyone may ask; the answer never says whether the account exists.
-	request: async ({ request, url }) => {
-		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.requestPasswordReset(d.email, url.origin));
+	request: async ({ request }) => {
+		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.requestPasswordReset(d.email));
 		return failure ?? { requested: true };
 	},
 	// Public: the token is the credential.

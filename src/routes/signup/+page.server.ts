@@ -1,5 +1,5 @@
 import { redirect } from '@sveltejs/kit';
-import { acceptInviteSchema, signUpSchema } from '$lib/schema/auth';
+import { acceptInviteSchema, signUpSchema, tokenField } from '$lib/schema/auth';
 import { accounts } from '$lib/server/accounts/service';
 import { startSession } from '$lib/server/auth';
 import { runForm } from '$lib/server/forms';
@@ -10,14 +10,14 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async ({ url }) => {
 	const token = url.searchParams.get('invite');
 	if (!token) return { invite: null };
-	const inv = /^[a-z2-7]{32}$/.test(token) ? await accounts.findInvitation(token) : undefined;
+	const inv = tokenField.safeParse(token).success ? await accounts.findInvitation(token) : undefined;
 	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const } };
 };
 
 export const actions: Actions = {
 	// Public: sign-up.
-	create: async ({ request, url }) => {
-		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, url.origin));
+	create: async ({ request, getClientAddress }) => {
+		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, getClientAddress()));
 		return failure ?? { sentTo: result.email };
 	},
 	// Public: the invitation token is the credential.

@@ -1,6 +1,5 @@
 import { redirect } from '@sveltejs/kit';
-import { z } from 'zod';
-import { tokenField } from '$lib/schema/auth';
+import { verifySchema } from '$lib/schema/auth';
 import { accounts } from '$lib/server/accounts/service';
 import { runForm } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
@@ -12,7 +11,7 @@ export const load: PageServerLoad = ({ url }) => ({ token: url.searchParams.get(
 export const actions: Actions = {
 	// Public: the token is the credential.
 	default: async ({ request }) => {
-		const { failure } = await runForm(request, z.object({ token: tokenField }), (d) => accounts.verifyEmail(d.token));
+		const { failure } = await runForm(request, verifySchema, (d) => accounts.verifyEmail(d.token));
 		if (failure) return failure;
 		redirect(303, '/login?verified=1');
 	}

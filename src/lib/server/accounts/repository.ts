@@ -30,7 +30,8 @@ export const accountsRepository = {
 
 	countByRole: () => db.select({ role: users.role, n: count() }).from(users).groupBy(users.role),
 
-	countOwners: async (c: Conn = db) => (await c.select({ n: count() }).from(users).where(eq(users.role, 'owner')))[0]?.n ?? 0,
+	/** The owners' rows, locked until the transaction ends, so two demotions cannot both pass a count. */
+	lockOwners: (c: Conn) => c.select({ id: users.id }).from(users).where(eq(users.role, 'owner')).for('update'),
 
 	insertToken: (values: typeof emailTokens.$inferInsert, c: Conn = db) => c.insert(emailTokens).values(values),
 
@@ -44,7 +45,9 @@ export const accountsRepository = {
 				.returning()
 		)[0],
 
-	findToken: async (tokenHash: string) => (await db.select().from(emailTokens).where(eq(emailTokens.tokenHash, tokenHash)))[0],
+	/** Every still-open link of that purpose for the user stops working. */
+	expireTokens: (userId: number, purpose: 'verify-email' | 'reset-password', now: Date, c: Conn = db) =>
+		c.update(emailTokens).set({ usedAt: now }).where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt))),
 
 	insertInvitation: (values: typeof invitations.$inferInsert) => db.insert(invitations).values(values),
 

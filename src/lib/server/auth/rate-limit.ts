@@ -1,37 +1,55 @@
-import { and, eq, gte, lt, sql } from 'drizzle-orm';
-import { db } from '../db';
-import { signInAttempts } from '../db/schema';
+import { attemptsRepository as repo } from './attempts-repository';
 
-export const SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
-/** Failed sign-ins allowed per window: per e-mail (guessing one account) and per address (spraying many). */
-export const SIGN_IN_LIMITS = { email: 5, ip: 30 } as const;
+const MINUTE = 60 * 1000;
 
-export type AttemptKey = { email: string; ip: string };
-
-const keysOf = (k: AttemptKey) => ({ email: `email:${k.email}`, ip: `ip:${k.ip}` });
-
-async function failuresSince(key: string, since: Date): Promise<number> {
-	const [row] = await db
-		.select({ n: sql<number>`count(*)::int` })
-		.from(signInAttempts)
-		.where(and(eq(signInAttempts.key, key), gte(signInAttempts.at, since)));
-	return row?.n ?? 0;
+export interface Limit {
+	limit: number;
+	windowMs: number;
 }
 
-export async function isSignInBlocked(k: AttemptKey, now = new Date()): Promise<boolean> {
-	const since = new Date(now.getTime() - SIGN_IN_WINDOW_MS);
-	const keys = keysOf(k);
-	const [byEmail, byIp] = await Promise.all([failuresSince(keys.email, since), failuresSince(keys.ip, since)]);
-	return byEmail >= SIGN_IN_LIMITS.email || byIp >= SIGN_IN_LIMITS.ip;
+/**
+ * Failed sign-ins per e-mail (guessing one account) and per address (spraying many), mails to one
+ * address (inbox flooding) and sign-ups per address. Counted in PostgreSQL so every instance shares them.
+ */
+export const LIMITS = {
+	signInPerEmail: { limit: 5, windowMs: 15 * MINUTE },
+	signInPerAddress: { limit: 30, windowMs: 15 * MINUTE },
+	mailsPerAddressee: { limit: 5, windowMs: 60 * MINUTE },
+	signUpsPerAddress: { limit: 20, windowMs: 60 * MINUTE }
+} as const satisfies Record<string, Limit>;
+
+export const SIGN_IN_LIMITS = { email: LIMITS.signInPerEmail.limit, ip: LIMITS.signInPerAddress.limit } as const;
+
+export const keys = {
+	signInEmail: (email: string) => `email:${email}`,
+	signInAddress: (ip: string) => `ip:${ip}`,
+	mailTo: (email: string) => `mail:${email}`,
+	signUpAddress: (ip: string) => `signup-ip:${ip}`
+};
+
+const KEEP_ROWS_MS = 24 * 60 * MINUTE;
+
+export interface Attempt {
+	allowed: boolean;
+	id: number;
 }
 
-export async function recordSignInFailure(k: AttemptKey): Promise<void> {
-	const keys = keysOf(k);
-	await db.insert(signInAttempts).values([{ key: keys.email }, { key: keys.ip }]);
+/**
+ * Records the attempt first and only then counts, so requests racing in parallel each see the
+ * others: at most `limit` of them get through, however many arrive at once.
+ */
+export async function consume(key: string, rule: Limit, now = new Date()): Promise<Attempt> {
+	const id = await repo.insert(key);
+	const n = await repo.countSince(key, new Date(now.getTime() - rule.windowMs));
 	// Old rows are useless; trimming here keeps the table small without a separate job.
-	await db.delete(signInAttempts).where(lt(signInAttempts.at, new Date(Date.now() - 24 * 60 * 60 * 1000)));
+	await repo.deleteBefore(new Date(now.getTime() - KEEP_ROWS_MS));
+	return { allowed: n <= rule.limit, id };
 }
 
-export async function clearSignInFailures(k: AttemptKey): Promise<void> {
-	await db.delete(signInAttempts).where(eq(signInAttempts.key, keysOf(k).email));
+/** A successful sign-in: its own attempts do not count, and earlier failures on the account are forgiven. */
+export async function forgive(attempts: Attempt[], email: string): Promise<void> {
+	await repo.deleteIds(attempts.map((a) => a.id));
+	await repo.deleteKey(keys.signInEmail(email));
 }
+
+export const clearSignInFailures = (email: string) => repo.deleteKey(keys.signInEmail(email));

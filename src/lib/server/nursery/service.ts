@@ -1,3 +1,4 @@
+import { findClimate } from '../../care';
 import { nurseryRepository } from './repository';
 
 /** Shown before the owner has set the nursery up. */
@@ -5,6 +6,12 @@ const UNNAMED = { name: 'Your nursery', town: 'your town', market: 'the market' 
 
 export const nurseryService = {
 	settings: () => nurseryRepository.settings(),
+	/** What the owner's dashboard shows of the settings, with the climate by name. */
+	async feedingSummary() {
+		const s = await nurseryRepository.settings();
+		if (!s) return null;
+		return { fertilizer: s.fertilizerName, npk: s.npk, climate: findClimate(s.defaultClimate)?.name ?? s.defaultClimate, restrictedMonths: s.restrictedMonths };
+	},
 	async publicProfile() {
 		const s = await nurseryRepository.settings();
 		return s ? { name: s.name, town: s.town, market: s.market } : UNNAMED;

@@ -18,7 +18,7 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	invite: async (event) => {
 		const me = requireUser(event, 'owner');
-		const { failure, result } = await runForm(event.request, inviteSchema, async (d) => (await accounts.invite(d, me.id, event.url.origin), d.email));
+		const { failure, result } = await runForm(event.request, inviteSchema, async (d) => (await accounts.invite(d, me.id), d.email));
 		return failure ?? { invited: result };
 	},
 	role: async (event) => {

@@ -75,5 +75,5 @@ export const signInAttempts = pgTable(
 		key: text('key').notNull(),
 		at: timestamp('at', { withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [index('sign_in_attempts_key_at_idx').on(t.key, t.at)]
+	(t) => [index('sign_in_attempts_key_at_idx').on(t.key, t.at), index('sign_in_attempts_at_idx').on(t.at)]
 );

@@ -1,0 +1,1 @@
+CREATE INDEX "sign_in_attempts_at_idx" ON "sign_in_attempts" USING btree ("at");
