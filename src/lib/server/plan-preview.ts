@@ -1,6 +1,7 @@
 /**
  * Plan preview: a parsed request (see $lib/schema/plan) → the engine's PlanInput → a plan,
- * with the engine's default feeding (`defaultFeeding`, which the demo nursery's settings match). No database: previews are for anyone, signed in or not.
+ * fed with the nursery's fertilizer and local rules (the routes read them from the settings;
+ * without them, the engine's `defaultFeeding`). Nothing is stored: previews are for anyone.
  */
 import {
 	climates,
@@ -11,6 +12,7 @@ import {
 	findCultivar,
 	referenceClimateSlug,
 	type Cultivar,
+	type FeedingSettings,
 	type Plan,
 	type PlanInput
 } from '$lib/care';
@@ -28,7 +30,7 @@ export interface PlanPreview {
 	plan: Plan;
 }
 
-export function toPlanInput(request: PlanRequest): PlanInput {
+export function toPlanInput(request: PlanRequest, feeding: FeedingSettings = defaultFeeding): PlanInput {
 	const cultivar = findCultivar(request.cultivar);
 	if (!cultivar) throw new UserFacingError('cultivar', 'Unknown cultivar');
 	let monthlyMeanC: number[];
@@ -43,13 +45,13 @@ export function toPlanInput(request: PlanRequest): PlanInput {
 		ageAtPlantingWeeks: request.ageAtPlantingWeeks,
 		climate: { monthlyMeanC },
 		units: request.units ?? 'metric',
-		feeding: defaultFeeding,
+		feeding,
 		...(request.observed ? { observed: request.observed } : {})
 	};
 }
 
-export function previewPlan(request: PlanRequest): PlanPreview {
-	const input = toPlanInput(request);
+export function previewPlan(request: PlanRequest, feeding?: FeedingSettings): PlanPreview {
+	const input = toPlanInput(request, feeding);
 	const climateName = typeof request.climate === 'string' ? (findClimate(request.climate)?.name ?? request.climate) : 'your monthly means';
 	return { request, cultivar: input.cultivar, climateName, plan: computePlan(input) };
 }
@@ -58,8 +60,8 @@ export function previewPlan(request: PlanRequest): PlanPreview {
  * The preview as a calendar. Its identity is the plant (cultivar and planting day), not the
  * climate or logged milestones, so refining those later updates the same events.
  */
-export function previewCalendar(request: PlanRequest, origin?: string): CalendarFile {
-	const { cultivar, plan } = previewPlan(request);
+export function previewCalendar(request: PlanRequest, origin?: string, feeding?: FeedingSettings): CalendarFile {
+	const { cultivar, plan } = previewPlan(request, feeding);
 	const ics = planCalendar(plan, {
 		identity: `preview|${request.cultivar}|${request.plantedOn}`,
 		name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
@@ -128,7 +130,7 @@ function formValues(raw: QueryValues): PlannerValues {
 }
 
 /** The year planner page: the query string is the form, so every plan has a shareable URL. */
-export function plannerView(params: URLSearchParams, today = todayIso()): PlannerView {
+export function plannerView(params: URLSearchParams, today = todayIso(), feeding?: FeedingSettings): PlannerView {
 	const asked = queryValues(params);
 	const example = Object.keys(asked).length === 0;
 	const raw = example ? queryValues(new URLSearchParams(planQueryString(exampleRequest(today)))) : asked;
@@ -141,7 +143,7 @@ export function plannerView(params: URLSearchParams, today = todayIso()): Planne
 		climateOptions: climates.map(({ slug, name }) => ({ slug, name }))
 	};
 	if (!parsed.success) return { ...base, errors: fieldErrors(parsed.error), result: null };
-	const preview = previewPlan(parsed.data);
+	const preview = previewPlan(parsed.data, feeding);
 	return {
 		...base,
 		errors: {},

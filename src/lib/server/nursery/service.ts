@@ -1,4 +1,4 @@
-import { findClimate } from '../../care';
+import { defaultFeeding, findClimate, type FeedingSettings } from '../../care';
 import { nurseryRepository } from './repository';
 
 /** Shown before the owner has set the nursery up. */
@@ -6,6 +6,17 @@ const UNNAMED = { name: 'Your nursery', town: 'your town', market: 'the market' 
 
 export const nurseryService = {
 	settings: () => nurseryRepository.settings(),
+	/** The fertilizer and local rules every plan is fed with; the scoop sizes are the engine's. */
+	async feedingSettings(): Promise<FeedingSettings> {
+		const s = await nurseryRepository.settings();
+		if (!s) return defaultFeeding;
+		return {
+			...defaultFeeding,
+			npk: s.npk,
+			restrictedMonths: s.restrictedMonths,
+			...(s.nitrogenCapKgPer100m2 != null ? { nitrogenCapKgPer100m2: s.nitrogenCapKgPer100m2 } : {})
+		};
+	},
 	/** What the owner's dashboard shows of the settings, with the climate by name. */
 	async feedingSummary() {
 		const s = await nurseryRepository.settings();
