@@ -70,9 +70,10 @@ export function previewCalendar(request: PlanRequest, origin?: string, feeding?:
 	return { filename: `bunchline-${request.cultivar}-${request.plantedOn}.ics`, ics };
 }
 
-/** Today in the server's calendar, as the planner's default planting date and "today" line. */
-export function todayIso(now: Date = new Date()): string {
-	return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+/** Today in the nursery's time zone (IANA name), as the planner's default planting date and "today" line. */
+export function todayIso(now: Date = new Date(), timeZone = 'UTC'): string {
+	// en-CA formats dates as YYYY-MM-DD.
+	return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
 }
 
 /** What the planner shows before anyone has chosen: a plant of the first cultivar, bought today. */

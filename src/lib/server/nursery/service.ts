@@ -17,6 +17,9 @@ export const nurseryService = {
 			...(s.nitrogenCapKgPer100m2 != null ? { nitrogenCapKgPer100m2: s.nitrogenCapKgPer100m2 } : {})
 		};
 	},
+	async timeZone(): Promise<string> {
+		return (await nurseryRepository.settings())?.timeZone ?? 'UTC';
+	},
 	/** What the owner's dashboard shows of the settings, with the climate by name. */
 	async feedingSummary() {
 		const s = await nurseryRepository.settings();
