@@ -27,6 +27,8 @@ export default defineConfig({
 				test: {
 					name: 'e2e',
 					include: ['tests/e2e/**/*.test.ts'],
+					// A real browser on a shared 2-core machine: one retry absorbs a scheduling hiccup, not a bug that repeats.
+					retry: 1,
 					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts', 'tests/setup/server.ts'],
 					fileParallelism: false,
 					testTimeout: 60_000,

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../scripts/seed';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { HOME_FOR } from '../../src/lib/nav';
-import { expectAccessible, launch, newContext, signIn } from '../helpers/browser';
+import { expectAccessible, launch, newContext, open, signIn } from '../helpers/browser';
 import { uniqueEmail } from '../helpers/db';
 import { linkIn, waitForMail } from '../helpers/mail';
 
@@ -29,7 +29,7 @@ describe('a buyer creates an account and looks after it', () => {
 		expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('banana');
 		await expectAccessible(page);
 
-		await page.goto('/signup');
+		await open(page, '/signup');
 		await expectAccessible(page);
 		await page.getByLabel('Your name').fill('Dana Buyer');
 		await page.getByLabel('E-mail').fill(email);
@@ -59,7 +59,7 @@ describe('a buyer creates an account and looks after it', () => {
 		await page.goto('/plants');
 		expect(new URL(page.url()).pathname).toBe('/login');
 
-		await page.goto('/reset');
+		await open(page, '/reset');
 		await expectAccessible(page);
 		await page.getByLabel('E-mail').fill(email);
 		await page.getByRole('button', { name: 'Send me a reset link' }).click();
@@ -82,14 +82,14 @@ describe('a buyer creates an account and looks after it', () => {
 
 	it('shows a message beside the field for a duplicate e-mail and a wrong password', async () => {
 		const page = await freshPage();
-		await page.goto('/signup');
+		await open(page, '/signup');
 		await page.getByLabel('Your name').fill('Copy Cat');
 		await page.getByLabel('E-mail').fill(DEMO_ACCOUNTS[3].email);
 		await page.getByLabel('Choose a password').fill('a fine long phrase');
 		await page.getByRole('button', { name: 'Create account' }).click();
 		await expect.poll(() => page.locator('#field-email-error').textContent()).toContain('already exists');
 
-		await page.goto('/login');
+		await open(page, '/login');
 		await page.getByLabel('E-mail').fill(DEMO_ACCOUNTS[3].email);
 		await page.getByLabel('Password').fill('not the demo password');
 		await page.getByRole('button', { name: 'Sign in' }).click();
@@ -111,7 +111,7 @@ describe('demo accounts', () => {
 	it('the owner invites a staff member who joins through the e-mailed link', async () => {
 		const page = await freshPage();
 		await signIn(page, DEMO_ACCOUNTS[0].email, DEMO_PASSWORD);
-		await page.goto('/nursery/team');
+		await open(page, '/nursery/team');
 		await expectAccessible(page);
 		const email = uniqueEmail('hire');
 		await page.getByRole('textbox', { name: 'E-mail' }).fill(email);

@@ -26,6 +26,8 @@ export const baseUrl = () => inject('baseUrl');
 /** A fresh context that fails the test on any request leaving the app (fonts, CDNs, trackers). */
 export async function newContext(browser: Browser, viewport = { width: 1280, height: 900 }): Promise<BrowserContext> {
 	const context = await browser.newContext({ baseURL: baseUrl(), viewport });
+	// A stuck step fails on its own, with what it waited for, well inside the test's time.
+	context.setDefaultTimeout(15_000);
 	const origin = new URL(baseUrl()).origin;
 	context.on('request', (req) => {
 		const url = new URL(req.url());
@@ -45,8 +47,14 @@ export async function expectAccessible(page: Page): Promise<void> {
 	expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`), page.url()).toEqual([]);
 }
 
+/** Opens a page and waits until its scripts have loaded, so forms are enhanced before they are used. */
+export async function open(page: Page, path: string): Promise<void> {
+	await page.goto(path);
+	await page.waitForLoadState('networkidle');
+}
+
 export async function signIn(page: Page, email: string, password: string): Promise<void> {
-	await page.goto('/login');
+	await open(page, '/login');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
