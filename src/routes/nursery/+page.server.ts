@@ -6,6 +6,6 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireUser(event, 'owner');
-	const [byRole, feeding, profile] = await Promise.all([accounts.countByRole(), nurseryService.feedingSummary(), nurseryService.publicProfile()]);
+	const [byRole, { feeding, profile }] = await Promise.all([accounts.countByRole(), nurseryService.dashboard()]);
 	return { byRole, feeding, profile, devMailbox: config.devMailbox };
 };

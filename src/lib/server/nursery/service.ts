@@ -1,33 +1,38 @@
 import { defaultFeeding, findClimate, type FeedingSettings } from '../../care';
 import { nurseryRepository } from './repository';
 
+type Settings = NonNullable<Awaited<ReturnType<typeof nurseryRepository.settings>>>;
+
 /** Shown before the owner has set the nursery up. */
 const UNNAMED = { name: 'Your nursery', town: 'your town', market: 'the market' };
 
+/** The fertilizer and local rules every plan is fed with; the scoop sizes are the engine's. */
+function feedingOf(s: Settings | undefined): FeedingSettings {
+	if (!s) return defaultFeeding;
+	return {
+		...defaultFeeding,
+		npk: s.npk,
+		restrictedMonths: s.restrictedMonths,
+		...(s.nitrogenCapKgPer100m2 != null ? { nitrogenCapKgPer100m2: s.nitrogenCapKgPer100m2 } : {})
+	};
+}
+
+const profileOf = (s: Settings | undefined) => (s ? { name: s.name, town: s.town, market: s.market } : UNNAMED);
+
 export const nurseryService = {
-	settings: () => nurseryRepository.settings(),
-	/** The fertilizer and local rules every plan is fed with; the scoop sizes are the engine's. */
-	async feedingSettings(): Promise<FeedingSettings> {
+	feedingSettings: async () => feedingOf(await nurseryRepository.settings()),
+	publicProfile: async () => profileOf(await nurseryRepository.settings()),
+	/** What the planner needs of the settings, from one read. */
+	async planningContext(): Promise<{ feeding: FeedingSettings; timeZone: string }> {
 		const s = await nurseryRepository.settings();
-		if (!s) return defaultFeeding;
-		return {
-			...defaultFeeding,
-			npk: s.npk,
-			restrictedMonths: s.restrictedMonths,
-			...(s.nitrogenCapKgPer100m2 != null ? { nitrogenCapKgPer100m2: s.nitrogenCapKgPer100m2 } : {})
-		};
+		return { feeding: feedingOf(s), timeZone: s?.timeZone ?? 'UTC' };
 	},
-	async timeZone(): Promise<string> {
-		return (await nurseryRepository.settings())?.timeZone ?? 'UTC';
-	},
-	/** What the owner's dashboard shows of the settings, with the climate by name. */
-	async feedingSummary() {
+	/** What the owner's dashboard shows of the settings, from one read, with the climate by name. */
+	async dashboard() {
 		const s = await nurseryRepository.settings();
-		if (!s) return null;
-		return { fertilizer: s.fertilizerName, npk: s.npk, climate: findClimate(s.defaultClimate)?.name ?? s.defaultClimate, restrictedMonths: s.restrictedMonths };
-	},
-	async publicProfile() {
-		const s = await nurseryRepository.settings();
-		return s ? { name: s.name, town: s.town, market: s.market } : UNNAMED;
+		const feeding = s
+			? { fertilizer: s.fertilizerName, npk: s.npk, climate: findClimate(s.defaultClimate)?.name ?? s.defaultClimate, restrictedMonths: s.restrictedMonths }
+			: null;
+		return { profile: profileOf(s), feeding };
 	}
 };
