@@ -1,2 +1,5 @@
 export * from './auth';
 export * from './nursery';
+export * from './catalogue';
+export * from './stock';
+export * from './plants';
