@@ -3,3 +3,4 @@ export * from './nursery';
 export * from './catalogue';
 export * from './stock';
 export * from './plants';
+export * from './plans';

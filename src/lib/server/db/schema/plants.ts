@@ -30,6 +30,14 @@ export const plants = pgTable(
 		units: text('units', { enum: ['metric', 'imperial'] }),
 		parentPlantId: integer('parent_plant_id').references((): AnyPgColumn => plants.id, { onDelete: 'set null' }),
 		archivedAt: timestamp('archived_at', { withTimezone: true }),
+		// Kept current by plan regeneration and the milestone log, so the nursery's table can filter
+		// and sort hundreds of thousands of plants by index without recomputing plans.
+		stage: text('stage'),
+		nextStepOn: date('next_step_on'),
+		nextStepKind: text('next_step_kind'),
+		lastMilestoneOn: date('last_milestone_on'),
+		lastMilestoneKind: text('last_milestone_kind'),
+		planChangedAt: timestamp('plan_changed_at', { withTimezone: true }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [
@@ -37,6 +45,8 @@ export const plants = pgTable(
 		index('plants_gardener_idx').on(t.gardenerId),
 		index('plants_sale_idx').on(t.saleId),
 		index('plants_cultivar_idx').on(t.cultivarId),
-		index('plants_parent_idx').on(t.parentPlantId)
+		index('plants_parent_idx').on(t.parentPlantId),
+		index('plants_next_step_idx').on(t.nextStepOn, t.id),
+		index('plants_stage_idx').on(t.stage, t.nextStepOn)
 	]
 );
