@@ -53,6 +53,8 @@ const env = {
 	DATABASE_URL: process.env.DATABASE_URL ?? cluster.url,
 	SMTP_PORT: process.env.SMTP_PORT ?? '2525',
 	MAIL_DIR: process.env.MAIL_DIR ?? 'dev-mail',
+	// Photos up to 10 MB (src/lib/uploads.ts) plus the form around them; adapter-node's default is 512 KB.
+	BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '11M',
 	BUNCHLINE_ENV: process.env.BUNCHLINE_ENV ?? (dev ? 'development' : 'demo'),
 	ORIGIN: url,
 	PUBLIC_URL: url,

@@ -8,7 +8,15 @@ import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants'];
+const SIGNED_IN = ['/plants', '/plants/1', '/plants/1/log', '/uploads/1/thumbnail'];
+/** Endpoints for any signed-in user, with each method they answer; signed out they say 401. */
+const SIGNED_IN_API: [string, string][] = [
+	['GET', '/api/v1/plants/1'],
+	['PATCH', '/api/v1/plants/1'],
+	['POST', '/api/v1/plants/1/milestones'],
+	['PATCH', '/api/v1/plants/1/milestones/1'],
+	['DELETE', '/api/v1/plants/1/milestones/1']
+];
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -42,7 +50,8 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml');
+const asTested = (route: string) =>
+	route.replace('[file]', 'x.eml').replace('[variant]', 'thumbnail').replace('[milestoneId]', '1').replace('[id]', '1');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -61,7 +70,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...SIGNED_IN_API.map(([, path]) => path), SIGN_OUT]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -72,6 +81,12 @@ describe('signed out', () => {
 			const res = await get(path);
 			expect(res.status).toBe(303);
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+		});
+	}
+	for (const [method, path] of SIGNED_IN_API) {
+		it(`${method} ${path} is 401`, async () => {
+			const res = await fetch(`${baseUrl()}${path}`, { method, redirect: 'manual', headers: { 'content-type': 'application/json' }, body: method === 'GET' ? undefined : '{}' });
+			expect(res.status).toBe(401);
 		});
 	}
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {

@@ -45,7 +45,7 @@ export default async function setup(project: TestProject) {
 	}
 	const server = spawn('node', ['build/index.js'], {
 		stdio: ['ignore', 'inherit', 'inherit'],
-		env: { ...process.env, HOST: '127.0.0.1', PORT: String(testPorts.app), ORIGIN: baseUrl, PUBLIC_URL: baseUrl, BUNCHLINE_ENV: 'test' }
+		env: { ...process.env, HOST: '127.0.0.1', PORT: String(testPorts.app), ORIGIN: baseUrl, PUBLIC_URL: baseUrl, BUNCHLINE_ENV: 'test', BODY_SIZE_LIMIT: '11M' }
 	});
 	try {
 		await waitForServer(server, baseUrl, 30_000);

@@ -3,7 +3,7 @@
  * the zod schemas, the log page and the API; and the one mapping from a plant's milestones to the
  * engine's observed inputs, so every logged day re-times the plan the same way.
  */
-import type { IsoDate, Observed } from '$lib/care';
+import { GRAMS_PER_POUND, type IsoDate, type Observed, type Units } from '$lib/care';
 
 export const MILESTONE_KINDS = [
 	'leaves',
@@ -123,4 +123,18 @@ export function currentGeneration(milestones: readonly Pick<LoggedMilestone, 'ki
 	const ended = new Set(milestones.filter((m) => m.kind === 'harvest' || m.kind === 'lost').map((m) => m.generation));
 	while (ended.has(generation)) generation++;
 	return generation;
+}
+
+/** A bunch's weight as the gardener typed it (kg, or lb in imperial) in grams, as stored. */
+export function bunchMassGrams(value: number, units: Units): number {
+	return Math.round(units === 'imperial' ? value * GRAMS_PER_POUND : value * 1000);
+}
+
+/** The unit the gardener types a bunch's weight in. */
+export const bunchMassUnit = (units: Units) => (units === 'imperial' ? 'lb' : 'kg');
+
+/** "23.5 kg", "51.8 lb". */
+export function bunchMassText(grams: number, units: Units): string {
+	const value = units === 'imperial' ? grams / GRAMS_PER_POUND : grams / 1000;
+	return `${Math.round(value * 10) / 10} ${bunchMassUnit(units)}`;
 }

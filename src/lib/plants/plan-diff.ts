@@ -69,6 +69,29 @@ export function storedContent(s: NumberedStep) {
 }
 export type StepContent = ReturnType<typeof storedContent>;
 
+/** Said of a stored feeding in a restricted month; the month and the rule are in its cautions. */
+export const RESTRICTED_REASON = 'Local rules restrict nitrogen and phosphorus fertilizer this month.';
+
+/** A stored step back in the engine's shape, for the plan components and calendars. */
+export function stepFromStored(s: Omit<StoredStep, 'uid' | 'sequence' | 'occurrence'>): Step {
+	const step: Step = {
+		kind: s.kind as Step['kind'],
+		title: s.title,
+		detail: s.detail,
+		earliest: s.earliest,
+		likely: s.likely,
+		latest: s.latest,
+		generation: s.generation
+	};
+	if (s.observed) step.observed = true;
+	if (s.amount) step.amount = s.amount;
+	if (s.nutrients) step.nutrients = s.nutrients;
+	if (s.cautions) step.cautions = s.cautions;
+	if (s.guide) step.guide = s.guide;
+	if (s.restricted) step.restricted = { reason: RESTRICTED_REASON, skippable: true };
+	return step;
+}
+
 const CONTENT_FIELDS = ['title', 'detail', 'earliest', 'likely', 'latest', 'amount', 'nutrients', 'cautions', 'guide', 'observed', 'restricted'] as const;
 
 /** JSON with object keys sorted: PostgreSQL's jsonb gives keys back in its own order. */

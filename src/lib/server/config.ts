@@ -24,6 +24,8 @@ export const config = {
 	},
 	/** Folder the local fake mail service writes to; the developer mailbox reads it. */
 	mailDir: env.MAIL_DIR ?? 'dev-mail',
+	/** Where the local-disk upload storage keeps photos: never under static/ or build/, so nothing is served without a check. */
+	uploadDir: env.UPLOAD_DIR ?? '.data/uploads',
 	get secureCookies() {
 		return this.mode === 'production' || this.publicUrl.startsWith('https:');
 	},

@@ -13,6 +13,11 @@ export async function runForm<S extends z.ZodType, R>(
 	work: (data: z.infer<S>) => Promise<R>
 ) {
 	const form = await request.formData().catch(() => new FormData());
+	return runFormData(form, schema, work);
+}
+
+/** The same, for an action that has read the form itself (to take a file from it). */
+export async function runFormData<S extends z.ZodType, R>(form: FormData, schema: S, work: (data: z.infer<S>) => Promise<R>) {
 	const parsed = parseForm(schema, form);
 	if (!parsed.ok) return { failure: fail(400, { errors: parsed.errors, values: parsed.values }) };
 	try {
