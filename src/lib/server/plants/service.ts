@@ -175,7 +175,6 @@ export function createPlantService(deps: PlantServiceDeps) {
 					shift: describeShift(c.days),
 					because: describeCause(c.cause)
 				})),
-				changedAt: plant.planChangedAt,
 				family
 			};
 		},
