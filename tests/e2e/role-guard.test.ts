@@ -8,7 +8,9 @@ import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants'];
+const SIGNED_IN = ['/plants', '/settings'];
+/** JSON endpoints for any signed-in account: signed out they answer 401, never a redirect. */
+const API_SIGNED_IN = ['/api/v1/feeds', '/api/v1/feeds/1'];
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -42,7 +44,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -61,7 +63,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...API_SIGNED_IN, SIGN_OUT]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -74,6 +76,17 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
+	it('GET /api/v1/feeds, POST /api/v1/feeds and DELETE /api/v1/feeds/1 are 401', async () => {
+		expect((await get(API_SIGNED_IN[0])).status).toBe(401);
+		const created = await fetch(`${baseUrl()}/api/v1/feeds`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+		expect(created.status).toBe(401);
+		expect((await fetch(`${baseUrl()}${API_SIGNED_IN[1]}`, { method: 'DELETE' })).status).toBe(401);
+	});
+	it('POST to a settings action redirects to sign-in', async () => {
+		const res = await post('/settings?/createFeed');
+		expect(res.status).toBe(303);
+		expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+	});
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -103,13 +116,30 @@ describe('a gardener', () => {
 	});
 });
 
+describe('feeds of another account', () => {
+	it("a gardener cannot revoke another account's feed (404), and their own list is theirs alone", async () => {
+		const made = await fetch(`${baseUrl()}/api/v1/feeds`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', cookie: staff },
+			body: '{}'
+		});
+		expect(made.status).toBe(201);
+		const { id, url } = (await made.json()) as { id: number; url: string };
+		const res = await fetch(`${baseUrl()}/api/v1/feeds/${id}`, { method: 'DELETE', headers: { cookie: gardener } });
+		expect(res.status).toBe(404);
+		const mine = (await (await get('/api/v1/feeds', gardener)).json()) as { feeds: { id: number }[] };
+		expect(mine.feeds.map((f) => f.id)).not.toContain(id);
+		expect((await fetch(url)).status).toBe(200);
+	});
+});
+
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });
