@@ -16,7 +16,7 @@ const mae = DEMO_ACCOUNTS.find((a) => a.email.startsWith('gardener.mae'))!;
 beforeAll(async () => {
 	await seedDemo(process.env.DATABASE_URL!);
 	const [row] = await db.select({ id: users.id }).from(users).where(eq(users.email, mae.email));
-	await insertPlant(db, row.id, '2026-03-01');
+	await insertPlant({ gardenerId: row.id, plantedOn: '2026-03-01' });
 	browser = await launch();
 });
 afterAll(async () => browser?.close());

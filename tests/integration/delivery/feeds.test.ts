@@ -12,7 +12,7 @@ import { feedRepository } from '../../../src/lib/server/feeds/repository';
 import { GET as getFeed } from '../../../src/routes/feeds/[token].ics/+server';
 import { GET as listFeeds, POST as postFeed } from '../../../src/routes/api/v1/feeds/+server';
 import { DELETE as deleteFeed } from '../../../src/routes/api/v1/feeds/[id]/+server';
-import { insertGardener, insertPlant, moveStep } from '../../helpers/plants';
+import { insertGardener, insertPlant, moveStep, pinChangeTime } from '../../helpers/plants';
 import { issuePaths } from '../api/helpers';
 
 type Handler = (event: never) => Response | Promise<Response>;
@@ -34,13 +34,14 @@ let plantId: number;
 let otherPlantId: number;
 
 beforeAll(async () => {
-	const a = await insertGardener(db, 'Pim');
-	const b = await insertGardener(db, 'Sol');
+	const a = await insertGardener('Pim');
+	const b = await insertGardener('Sol');
 	pim = { id: a.id, role: 'gardener', name: 'Pim', email: a.email };
 	sol = { id: b.id, role: 'gardener', name: 'Sol', email: b.email };
-	plantId = (await insertPlant(db, pim.id, '2026-03-01')).id;
-	await insertPlant(db, pim.id, '2026-04-01');
-	otherPlantId = (await insertPlant(db, sol.id)).id;
+	plantId = (await insertPlant({ gardenerId: pim.id, plantedOn: '2026-03-01' })).id;
+	await pinChangeTime(plantId, new Date('2026-02-20T10:00:00Z'));
+	await insertPlant({ gardenerId: pim.id, plantedOn: '2026-04-01' });
+	otherPlantId = (await insertPlant({ gardenerId: sol.id })).id;
 });
 
 describe('creating a feed', () => {
@@ -119,7 +120,7 @@ describe('serving a feed', () => {
 		expect((await fetchFeed(token, { 'if-none-match': '"other"' })).status).toBe(200);
 
 		const [step] = await db.select().from(planSteps).where(eq(planSteps.plantId, plantId)).orderBy(planSteps.likely).limit(1);
-		await moveStep(db, step.id, 3, new Date('2026-03-05T09:30:00Z'));
+		await moveStep(step.id, 3, new Date('2026-03-05T09:30:00Z'));
 		const after = await fetchFeed(token, { 'if-none-match': etag });
 		expect(after.status).toBe(200);
 		expect(after.headers.get('etag')).not.toBe(etag);

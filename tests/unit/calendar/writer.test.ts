@@ -28,24 +28,23 @@ describe('escaping (RFC 5545 §3.3.11)', () => {
 				const ev = parsedEvent(writeCalendar({ prodId: '-//T//T//EN', name: 'n' }, [event(summary.replace(/[\r\n]/g, ' '), description)]));
 				expect(ev.getFirstPropertyValue('description')).toBe(normalised);
 			}),
-			{ numRuns: 300 }
+			{ numRuns: 200 }
 		);
-	});
+	}, 30_000);
 });
 
 describe('folding (RFC 5545 §3.1)', () => {
 	it('a short ASCII line is left alone', () => expect(foldLine('SUMMARY:Feed')).toBe('SUMMARY:Feed'));
 	it('every physical line is at most 75 octets and unfolding restores the line, multi-byte text included', () => {
 		fc.assert(
-			fc.property(fc.string({ unit: 'binary', maxLength: 600 }), (text) => {
+			fc.property(fc.string({ unit: 'binary', maxLength: 300 }), (text) => {
 				const line = `DESCRIPTION:${text.replace(/[\r\n]/g, '')}`;
 				const folded = foldLine(line);
-				for (const physical of folded.split('\r\n')) expect(octets(physical)).toBeLessThanOrEqual(75);
-				expect(folded.replace(/\r\n /g, '')).toBe(line);
+				return folded.split('\r\n').every((physical) => octets(physical) <= 75) && folded.replace(/\r\n /g, '') === line;
 			}),
-			{ numRuns: 200 }
+			{ numRuns: 100 }
 		);
-	});
+	}, 30_000);
 	it('a 200-character ASCII line folds into 75 + 74 + 51 characters (the leading space counts)', () => {
 		const folded = foldLine('X'.repeat(200)).split('\r\n');
 		expect(folded.map((l) => l.length)).toEqual([75, 75, 52]);
