@@ -5,3 +5,5 @@ export * from './stock';
 export * from './plants';
 export * from './plans';
 export * from './secrets';
+export * from './uploads';
+export * from './milestones';
