@@ -9,8 +9,25 @@ import { baseUrl } from '../helpers/browser';
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants', '/settings'];
-/** JSON endpoints for any signed-in account: signed out they answer 401, never a redirect. */
-const API_SIGNED_IN = ['/api/v1/feeds', '/api/v1/feeds/1'];
+/** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
+const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
+	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/stock', method: 'POST', roles: 'owner' },
+	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
+	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
+	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
+	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' }
+];
+const apiCall = (method: string, path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method,
+		redirect: 'manual',
+		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+		...(method === 'GET' ? {} : { body: '{}' })
+	});
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -63,7 +80,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...API_SIGNED_IN, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path)]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -76,12 +93,6 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
-	it('GET /api/v1/feeds, POST /api/v1/feeds and DELETE /api/v1/feeds/1 are 401', async () => {
-		expect((await get(API_SIGNED_IN[0])).status).toBe(401);
-		const created = await fetch(`${baseUrl()}/api/v1/feeds`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
-		expect(created.status).toBe(401);
-		expect((await fetch(`${baseUrl()}${API_SIGNED_IN[1]}`, { method: 'DELETE' })).status).toBe(401);
-	});
 	it('POST to a settings action redirects to sign-in', async () => {
 		const res = await post('/settings?/createFeed');
 		expect(res.status).toBe(303);
@@ -113,6 +124,31 @@ describe('a gardener', () => {
 		});
 		expect(res.status).toBe(403);
 		expect((await get('/nursery', gardener)).status).toBe(403);
+	});
+});
+
+describe('the JSON API', () => {
+	for (const { path, method, roles } of API) {
+		it(`${method} ${path} signed out is 401 in the API's error shape`, async () => {
+			const res = await apiCall(method, path);
+			expect(res.status).toBe(401);
+			expect(((await res.json()) as { error: { message: string } }).error.message).toBeTruthy();
+		});
+		if (roles !== 'signed-in') {
+			it(`${method} ${path} is 403 for a gardener`, async () => expect((await apiCall(method, path, gardener)).status).toBe(403));
+		}
+		if (roles === 'owner') {
+			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
+		}
+	}
+	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example', cookie: staff },
+			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
+		});
+		expect(res.status).toBe(403);
 	});
 });
 
