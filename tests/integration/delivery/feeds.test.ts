@@ -73,7 +73,10 @@ describe('creating a feed', () => {
 	});
 
 	it('signed out is 401', async () => {
-		await expect(postJson(undefined, {})).rejects.toMatchObject({ status: 401 });
+		const before = await db.$count(calendarFeeds);
+		const res = await postJson(undefined, {});
+		expect(res.status).toBe(401);
+		expect(await db.$count(calendarFeeds)).toBe(before);
 	});
 });
 
