@@ -4,3 +4,5 @@ export * from './catalogue';
 export * from './stock';
 export * from './plants';
 export * from './plans';
+export * from './uploads';
+export * from './milestones';
