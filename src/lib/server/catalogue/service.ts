@@ -30,7 +30,12 @@ export function createCatalogueService(repo: Pick<CatalogueRepository, 'version'
 		climateById: async (id: number) => (await snapshot()).climateById(id),
 		settings: async () => (await snapshot()).settings,
 		/** The fertilizer, scoop and local rules every plan is fed with. */
-		feedingSettings: async () => (await snapshot()).feeding
+		feedingSettings: async () => (await snapshot()).feeding,
+		/** What a plan needs of the settings: the feeding and the nursery's time zone (for "today"). */
+		planningContext: async () => {
+			const s = await snapshot();
+			return { feeding: s.feeding, timeZone: s.settings.timeZone };
+		}
 	};
 }
 

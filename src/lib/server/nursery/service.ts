@@ -4,9 +4,10 @@
  */
 import { catalogueService, type CatalogueService } from '../catalogue/service';
 
-export function createNurseryService(catalogue: Pick<CatalogueService, 'snapshot'>) {
+export function createNurseryService(catalogue: Pick<CatalogueService, 'snapshot' | 'planningContext' | 'feedingSettings'>) {
 	return {
-		feedingSettings: async () => (await catalogue.snapshot()).feeding,
+		feedingSettings: catalogue.feedingSettings,
+		planningContext: catalogue.planningContext,
 		publicProfile: async () => {
 			const { name, town, market } = (await catalogue.snapshot()).settings;
 			return { name, town, market };
