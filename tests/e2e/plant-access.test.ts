@@ -7,7 +7,7 @@ import { seedDemo } from '../../scripts/seed';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { db } from '../../src/lib/server/db';
 import { milestones, planSteps, plants, users } from '../../src/lib/server/db/schema';
-import { plantService } from '../../src/lib/server/plants/service';
+import { plantService } from '../../src/lib/server/plants/plant-service';
 import { baseUrl } from '../helpers/browser';
 import { phonePhotoWithGps } from '../helpers/images';
 import { insertPlant } from '../helpers/plants';

@@ -8,15 +8,30 @@ import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants', '/plants/1', '/plants/1/log', '/uploads/1/thumbnail'];
-/** Endpoints for any signed-in user, with each method they answer; signed out they say 401. */
-const SIGNED_IN_API: [string, string][] = [
-	['GET', '/api/v1/plants/1'],
-	['PATCH', '/api/v1/plants/1'],
-	['POST', '/api/v1/plants/1/milestones'],
-	['PATCH', '/api/v1/plants/1/milestones/1'],
-	['DELETE', '/api/v1/plants/1/milestones/1']
+const SIGNED_IN = ['/plants', '/settings', '/plants/1', '/plants/1/log', '/uploads/1/thumbnail'];
+/** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
+const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
+	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/stock', method: 'POST', roles: 'owner' },
+	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
+	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
+	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1', method: 'PATCH', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1/milestones', method: 'POST', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1/milestones/1', method: 'PATCH', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1/milestones/1', method: 'DELETE', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
+	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' }
 ];
+const apiCall = (method: string, path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method,
+		redirect: 'manual',
+		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+		...(method === 'GET' ? {} : { body: '{}' })
+	});
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -70,7 +85,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...SIGNED_IN_API.map(([, path]) => path), SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path)]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -83,12 +98,11 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
-	for (const [method, path] of SIGNED_IN_API) {
-		it(`${method} ${path} is 401`, async () => {
-			const res = await fetch(`${baseUrl()}${path}`, { method, redirect: 'manual', headers: { 'content-type': 'application/json' }, body: method === 'GET' ? undefined : '{}' });
-			expect(res.status).toBe(401);
-		});
-	}
+	it('POST to a settings action redirects to sign-in', async () => {
+		const res = await post('/settings?/createFeed');
+		expect(res.status).toBe(303);
+		expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+	});
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -118,13 +132,55 @@ describe('a gardener', () => {
 	});
 });
 
+describe('the JSON API', () => {
+	for (const { path, method, roles } of API) {
+		it(`${method} ${path} signed out is 401 in the API's error shape`, async () => {
+			const res = await apiCall(method, path);
+			expect(res.status).toBe(401);
+			expect(((await res.json()) as { error: { message: string } }).error.message).toBeTruthy();
+		});
+		if (roles !== 'signed-in') {
+			it(`${method} ${path} is 403 for a gardener`, async () => expect((await apiCall(method, path, gardener)).status).toBe(403));
+		}
+		if (roles === 'owner') {
+			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
+		}
+	}
+	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example', cookie: staff },
+			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
+		});
+		expect(res.status).toBe(403);
+	});
+});
+
+describe('feeds of another account', () => {
+	it("a gardener cannot revoke another account's feed (404), and their own list is theirs alone", async () => {
+		const made = await fetch(`${baseUrl()}/api/v1/feeds`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', cookie: staff },
+			body: '{}'
+		});
+		expect(made.status).toBe(201);
+		const { id, url } = (await made.json()) as { id: number; url: string };
+		const res = await fetch(`${baseUrl()}/api/v1/feeds/${id}`, { method: 'DELETE', headers: { cookie: gardener } });
+		expect(res.status).toBe(404);
+		const mine = (await (await get('/api/v1/feeds', gardener)).json()) as { feeds: { id: number }[] };
+		expect(mine.feeds.map((f) => f.id)).not.toContain(id);
+		expect((await fetch(url)).status).toBe(200);
+	});
+});
+
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });

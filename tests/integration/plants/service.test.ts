@@ -4,7 +4,7 @@ import { asc, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../../src/lib/server/db';
 import { milestones, planSteps, plants, uploads as uploadTable } from '../../../src/lib/server/db/schema';
-import { plantService } from '../../../src/lib/server/plants/service';
+import { plantService } from '../../../src/lib/server/plants/plant-service';
 import { uploads } from '../../../src/lib/server/uploads';
 import { config } from '../../../src/lib/server/config';
 import { UPLOAD_LIMITS } from '../../../src/lib/uploads';

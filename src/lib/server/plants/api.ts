@@ -1,12 +1,12 @@
 /** What the plant endpoints share: reading the ids of the path and answering with the plant. */
 import { UserFacingError } from '../errors';
 import type { AuthUser } from '../auth/guard';
-import { plantService } from './service';
+import { plantService } from './plant-service';
 import { idParam, milestoneJson, plantJson, stepJson } from './json';
 
 export function pathId(raw: string | undefined, field: 'plant' | 'milestone'): number {
 	const id = idParam(raw ?? '');
-	if (id === undefined) throw new UserFacingError(field, field === 'plant' ? 'No such plant' : 'No such milestone', 404);
+	if (id === undefined) throw new UserFacingError(field === 'plant' ? 'id' : 'milestoneId', field === 'plant' ? 'No such plant' : 'No such milestone', 404);
 	return id;
 }
 

@@ -3,7 +3,7 @@ import type { StepMove } from '$lib/plants/plan-diff';
 import { bunchMassGrams, bunchMassUnit } from '$lib/plants/milestones';
 import type { Units } from '$lib/care';
 import type { PlanStepRow } from '../plans/repository';
-import type { MilestoneRow, PlantRow } from './repository';
+import type { MilestoneRow, PlantRow } from './plant-repository';
 
 export const photoUrls = (photoId: number) => ({ thumbnail: `/uploads/${photoId}/thumbnail`, display: `/uploads/${photoId}/display` });
 

@@ -3,7 +3,7 @@ import { error } from '@sveltejs/kit';
 import { UserFacingError } from '../errors';
 import type { AuthUser } from '../auth/guard';
 import { pathId } from './api';
-import { plantService } from './service';
+import { plantService } from './plant-service';
 
 export async function plantPage(user: AuthUser, rawId: string) {
 	try {

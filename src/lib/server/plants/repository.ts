@@ -1,82 +1,89 @@
-/** Queries of the plant page, the milestone log and their API. Queries only. */
-import { and, asc, eq } from 'drizzle-orm';
-import { alias } from 'drizzle-orm/pg-core';
-import { db } from '../db';
-import { climateProfiles, cultivars, milestones, planSteps, plants, users } from '../db/schema';
-import type { Conn } from '../db/tx';
+/** Plant queries for the lists, the API and claiming. Queries only. */
+import { and, asc, count, desc, eq, isNull, sql, type SQL } from 'drizzle-orm';
+import { climateProfiles, cultivars, plants, sales, users } from '../db/schema';
+import type { AnyDb } from '../secrets';
 
-export type MilestoneRow = typeof milestones.$inferSelect;
-export type PlantRow = typeof plants.$inferSelect;
-
-const parent = alias(plants, 'parent');
-const parentCultivar = alias(cultivars, 'parent_cultivar');
-
-export const plantsRepository = {
-	connection: db as Conn,
-	transaction: <T>(fn: (tx: Parameters<Parameters<typeof db.transaction>[0]>[0]) => Promise<T>) => db.transaction(fn),
-
-	/** The plant with the names the page shows. */
-	plant: async (id: number, c: Conn = db) =>
-		(
-			await c
-				.select({
-					plant: plants,
-					cultivarName: cultivars.name,
-					cultivarSlug: cultivars.slug,
-					climateName: climateProfiles.name,
-					climateSlug: climateProfiles.slug,
-					gardenerName: users.name
-				})
-				.from(plants)
-				.innerJoin(cultivars, eq(cultivars.id, plants.cultivarId))
-				.leftJoin(climateProfiles, eq(climateProfiles.id, plants.climateProfileId))
-				.leftJoin(users, eq(users.id, plants.gardenerId))
-				.where(eq(plants.id, id))
-		)[0],
-
-	/** The mat a plant was divided from, and the plants divided from it. */
-	family: async (plantId: number, parentId: number | null, c: Conn = db) => {
-		const children = await c
-			.select({ id: plants.id, plantedOn: plants.plantedOn, cultivarName: cultivars.name, archivedAt: plants.archivedAt })
-			.from(plants)
-			.innerJoin(cultivars, eq(cultivars.id, plants.cultivarId))
-			.where(eq(plants.parentPlantId, plantId))
-			.orderBy(asc(plants.plantedOn), asc(plants.id));
-		const parents =
-			parentId === null
-				? []
-				: await c
-						.select({ id: parent.id, plantedOn: parent.plantedOn, cultivarName: parentCultivar.name, gardenerId: parent.gardenerId })
-						.from(parent)
-						.innerJoin(parentCultivar, eq(parentCultivar.id, parent.cultivarId))
-						.where(eq(parent.id, parentId));
-		return { parent: parents[0] ?? null, children };
-	},
-
-	steps: (plantId: number, c: Conn = db) => c.select().from(planSteps).where(eq(planSteps.plantId, plantId)).orderBy(asc(planSteps.likely), asc(planSteps.id)),
-
-	milestones: (plantId: number, c: Conn = db) =>
-		c.select().from(milestones).where(eq(milestones.plantId, plantId)).orderBy(asc(milestones.on), asc(milestones.id)),
-
-	milestone: async (plantId: number, milestoneId: number, c: Conn = db) =>
-		(await c.select().from(milestones).where(and(eq(milestones.plantId, plantId), eq(milestones.id, milestoneId))))[0],
-
-	/** The milestone a photo belongs to, with its plant's gardener: who may see the photo. */
-	milestoneOfPhoto: async (uploadId: number, c: Conn = db) =>
-		(
-			await c
-				.select({ plantId: milestones.plantId, gardenerId: plants.gardenerId })
-				.from(milestones)
-				.innerJoin(plants, eq(plants.id, milestones.plantId))
-				.where(eq(milestones.photoId, uploadId))
-		)[0],
-
-	insertMilestone: async (c: Conn, values: typeof milestones.$inferInsert) => (await c.insert(milestones).values(values).returning())[0]!,
-	updateMilestone: async (c: Conn, id: number, values: Partial<typeof milestones.$inferInsert>) =>
-		(await c.update(milestones).set({ ...values, updatedAt: new Date() }).where(eq(milestones.id, id)).returning())[0]!,
-	deleteMilestone: (c: Conn, id: number) => c.delete(milestones).where(eq(milestones.id, id)),
-
-	updatePlant: (c: Conn, id: number, values: Partial<typeof plants.$inferInsert>) => c.update(plants).set(values).where(eq(plants.id, id)),
-	insertPlant: async (c: Conn, values: typeof plants.$inferInsert) => (await c.insert(plants).values(values).returning())[0]!
+const listColumns = {
+	id: plants.id,
+	saleId: plants.saleId,
+	cultivarId: plants.cultivarId,
+	cultivarSlug: cultivars.slug,
+	cultivarName: cultivars.name,
+	soldOn: plants.soldOn,
+	ageAtSaleWeeks: plants.ageAtSaleWeeks,
+	claimedAt: plants.claimedAt,
+	gardenerId: plants.gardenerId,
+	gardenerName: users.name,
+	plantedOn: plants.plantedOn,
+	ageAtPlantingWeeks: plants.ageAtPlantingWeeks,
+	climateProfileId: plants.climateProfileId,
+	climateName: climateProfiles.name,
+	profileMeans: climateProfiles.monthlyMeanC,
+	customMonthlyMeanC: plants.customMonthlyMeanC,
+	units: plants.units
 };
-export type PlantsRepository = typeof plantsRepository;
+
+const listQuery = (db: AnyDb) =>
+	db
+		.select(listColumns)
+		.from(plants)
+		.innerJoin(cultivars, eq(cultivars.id, plants.cultivarId))
+		.leftJoin(users, eq(users.id, plants.gardenerId))
+		.leftJoin(climateProfiles, eq(climateProfiles.id, plants.climateProfileId));
+
+export type PlantListRow = Awaited<ReturnType<typeof listQuery>>[number];
+
+/** Who is asking: a gardener sees their own plants, staff and the owner see every plant. */
+export type PlantScope = { kind: 'gardener'; gardenerId: number } | { kind: 'all' };
+
+/**
+ * The filter for a scope. Further filters (stage, cultivar, dates) join this list, so one query
+ * serves the gardener's page, the nursery's table and the API.
+ */
+export function plantFilters(scope: PlantScope): SQL[] {
+	const where: SQL[] = [isNull(plants.archivedAt)];
+	if (scope.kind === 'gardener') where.push(eq(plants.gardenerId, scope.gardenerId));
+	return where;
+}
+
+export function plantsRepository(db: AnyDb) {
+	const base = () => listQuery(db);
+	return {
+		page: (where: SQL[], limit: number, offset: number): Promise<PlantListRow[]> =>
+			base()
+				.where(and(...where))
+				.orderBy(sql`${plants.plantedOn} desc nulls last`, desc(plants.soldOn), asc(plants.id))
+				.limit(limit)
+				.offset(offset),
+		count: async (where: SQL[]) => (await db.select({ n: count() }).from(plants).where(and(...where)))[0].n,
+		one: async (where: SQL[]) => (await base().where(and(...where)))[0],
+		/** A plant by its claim code's hash, with what the claim page shows. */
+		byClaimHash: async (hash: string) =>
+			(
+				await db
+					.select({
+						id: plants.id,
+						cultivarId: plants.cultivarId,
+						cultivarName: cultivars.name,
+						soldOn: plants.soldOn,
+						ageAtSaleWeeks: plants.ageAtSaleWeeks,
+						claimedAt: plants.claimedAt,
+						gardenerId: plants.gardenerId,
+						buyerEmail: sales.buyerEmail
+					})
+					.from(plants)
+					.innerJoin(cultivars, eq(cultivars.id, plants.cultivarId))
+					.leftJoin(sales, eq(sales.id, plants.saleId))
+					.where(eq(plants.claimCodeHash, hash))
+			)[0],
+		/** Claims the plant only if its code is still open: a code is used once, even by racing requests. */
+		claim: async (hash: string, v: Partial<typeof plants.$inferInsert>) =>
+			(
+				await db
+					.update(plants)
+					.set(v)
+					.where(and(eq(plants.claimCodeHash, hash), isNull(plants.claimedAt)))
+					.returning({ id: plants.id })
+			)[0]
+	};
+}

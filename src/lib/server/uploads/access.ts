@@ -4,7 +4,7 @@
  */
 import type { UploadPurpose } from '$lib/uploads';
 import type { AuthUser } from '../auth/guard';
-import { plantService } from '../plants/service';
+import { plantService } from '../plants/plant-service';
 import type { UploadRow } from './repository';
 
 type Viewer = Pick<AuthUser, 'id' | 'role'>;

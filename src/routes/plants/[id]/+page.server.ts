@@ -3,7 +3,7 @@ import { requireUser } from '$lib/server/auth';
 import { runForm } from '$lib/server/forms';
 import { catalogueService } from '$lib/server/catalogue/service';
 import { plantIdOf, plantPage } from '$lib/server/plants/page';
-import { plantService } from '$lib/server/plants/service';
+import { plantService } from '$lib/server/plants/plant-service';
 import { plantSettingsFormSchema } from '$lib/schema/plant';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { requireUser } from '$lib/server/auth';
 import { runFormData } from '$lib/server/forms';
 import { plantIdOf, plantPage } from '$lib/server/plants/page';
-import { plantService } from '$lib/server/plants/service';
+import { plantService } from '$lib/server/plants/plant-service';
 import { milestonePatchSchema, milestoneSchema } from '$lib/schema/plant';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { apiRoute, parseInput, readJson } from '$lib/server/api';
 import { requireUser } from '$lib/server/auth';
-import { plantService } from '$lib/server/plants/service';
+import { plantService } from '$lib/server/plants/plant-service';
 import { pathId, plantResponse } from '$lib/server/plants/api';
 import { moveJson } from '$lib/server/plants/json';
 import { plantPatchSchema } from '$lib/schema/plant';
