@@ -4,26 +4,18 @@
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../scripts/seed';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
+import { DEMO_ACCOUNTS } from '../../scripts/demo.mjs';
 import { db } from '../../src/lib/server/db';
 import { milestones, planSteps, plants, users } from '../../src/lib/server/db/schema';
 import { plantService } from '../../src/lib/server/plants/plant-service';
 import { baseUrl } from '../helpers/browser';
+import { sessionCookie } from '../helpers/session';
 import { phonePhotoWithGps } from '../helpers/images';
 import { insertPlant } from '../helpers/plants';
 
 const isoDaysAfter = (iso: string, days: number) => new Date(Date.parse(iso) + days * 86_400_000).toISOString().slice(0, 10);
 const today = new Date().toISOString().slice(0, 10);
 
-async function sessionCookie(email: string): Promise<string> {
-	const login = await fetch(`${baseUrl()}/login?/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl() },
-		body: new URLSearchParams({ email, password: DEMO_PASSWORD })
-	});
-	return login.headers.getSetCookie().find((c) => c.startsWith('bunchline_session='))!.split(';')[0]!;
-}
 
 const request = (cookie: string, method: string, path: string, body?: unknown, form?: URLSearchParams | FormData) =>
 	fetch(`${baseUrl()}${path}`, {

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
+import { sessionCookie } from '../helpers/session';
 
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
@@ -33,17 +34,6 @@ const apiCall = (method: string, path: string, cookie?: string) =>
 		...(method === 'GET' ? {} : { body: '{}' })
 	});
 
-async function sessionCookie(email: string): Promise<string> {
-	const login = await fetch(`${baseUrl()}/login?/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl() },
-		body: new URLSearchParams({ email, password: DEMO_PASSWORD })
-	});
-	const cookie = login.headers.getSetCookie().find((c) => c.startsWith('bunchline_session='));
-	if (!cookie) throw new Error(`no session for ${email} (${login.status})`);
-	return cookie.split(';')[0];
-}
 
 const get = (path: string, cookie?: string) =>
 	fetch(`${baseUrl()}${path}`, { redirect: 'manual', headers: cookie ? { cookie } : {} });
