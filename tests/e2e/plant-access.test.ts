@@ -128,7 +128,7 @@ describe('ASVS V2.2.1: bad input is refused with the field named, and nothing is
 	}
 
 	it('a body that is not JSON is a 400, not a write', async () => {
-		const res = await fetch(`${baseUrl()}/api/v1/plants/${plantId}/milestones`, { method: 'POST', headers: { cookie: pim, 'content-type': 'text/plain' }, body: 'kind=shooting' });
+		const res = await fetch(`${baseUrl()}/api/v1/plants/${plantId}/milestones`, { method: 'POST', headers: { cookie: pim, origin: baseUrl(), 'content-type': 'text/plain' }, body: 'kind=shooting' });
 		expect(res.status).toBe(400);
 	});
 
