@@ -12,10 +12,14 @@ const publicLinks: NavLink[] = [
 
 const byRole: Record<Role, NavLink[]> = {
 	gardener: [{ href: '/plants', label: 'My plants' }],
-	staff: [{ href: '/nursery/stall', label: 'Stall' }],
+	staff: [
+		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' }
+	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' }
 	]
 };

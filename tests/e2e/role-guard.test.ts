@@ -6,7 +6,10 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/plants'];
+/** JSON and CSV for signed-in people: 401 signed out; gardeners get their own plants or 403. */
+const API_FOR_GARDENERS = ['/api/v1/plants'];
+const API_STAFF_ONLY = ['/api/v1/plants.csv'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants'];
 
@@ -61,7 +64,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API_FOR_GARDENERS, ...API_STAFF_ONLY]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -74,6 +77,13 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
+	for (const path of [...API_FOR_GARDENERS, ...API_STAFF_ONLY]) {
+		it(`GET ${path} is 401 in the API error shape`, async () => {
+			const res = await get(path);
+			expect(res.status).toBe(401);
+			expect((await res.json()).error.message).toBeTruthy();
+		});
+	}
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -84,6 +94,19 @@ describe('signed out', () => {
 describe('a gardener', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
+	}
+	for (const path of API_STAFF_ONLY) {
+		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
+	}
+	for (const path of API_FOR_GARDENERS) {
+		it(`GET ${path} is 200 with only their own plants`, async () => {
+			const res = await get(path, gardener);
+			expect(res.status).toBe(200);
+			const body = await res.json();
+			const own = await fetch(`${baseUrl()}${path}?claimed=no`, { headers: { cookie: gardener } }).then((r) => r.json());
+			expect(own.total).toBe(0);
+			expect(body.plants.every((p: { claimed: boolean }) => p.claimed)).toBe(true);
+		});
 	}
 	for (const action of ['/nursery/team?/invite', '/nursery/team?/role']) {
 		it(`POST ${action} is 403`, async () => {
@@ -104,7 +127,7 @@ describe('a gardener', () => {
 });
 
 describe('staff', () => {
-	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
+	for (const path of [...STAFF_ONLY, ...API_FOR_GARDENERS, ...API_STAFF_ONLY]) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
 });
 

@@ -3,7 +3,7 @@
  * { "error": { "message": string, "issues": [{ "path": (string|number)[], "message": string }] } }.
  * An empty path means the request as a whole (e.g. a body that is not JSON).
  */
-import { json, type RequestHandler } from '@sveltejs/kit';
+import { isHttpError, json, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { UserFacingError } from './errors';
 
@@ -67,6 +67,8 @@ export function apiRoute(handler: RequestHandler): RequestHandler {
 		} catch (e) {
 			if (e instanceof ApiInputError) return apiError(e.message, e.issues);
 			if (e instanceof UserFacingError) return apiError(e.message, [{ path: e.field ? e.field.split('.') : [], message: e.message }], e.status);
+			// The guard's 401 and 403 in the same shape, so a client reads every refusal one way.
+			if (isHttpError(e) && e.status < 500) return apiError(e.body.message, [], e.status);
 			throw e;
 		}
 	};
