@@ -7,11 +7,25 @@ import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall', '/nursery/plants'];
-/** JSON and CSV for signed-in people: 401 signed out; gardeners get their own plants or 403. */
-const API_FOR_GARDENERS = ['/api/v1/plants'];
-const API_STAFF_ONLY = ['/api/v1/plants.csv'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants'];
+/** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
+const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
+	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/stock', method: 'POST', roles: 'owner' },
+	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
+	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
+	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' }
+];
+const apiCall = (method: string, path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method,
+		redirect: 'manual',
+		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+		...(method === 'GET' ? {} : { body: '{}' })
+	});
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -45,7 +59,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -64,7 +78,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API_FOR_GARDENERS, ...API_STAFF_ONLY]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path)]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -77,13 +91,6 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
-	for (const path of [...API_FOR_GARDENERS, ...API_STAFF_ONLY]) {
-		it(`GET ${path} is 401 in the API error shape`, async () => {
-			const res = await get(path);
-			expect(res.status).toBe(401);
-			expect((await res.json()).error.message).toBeTruthy();
-		});
-	}
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -94,19 +101,6 @@ describe('signed out', () => {
 describe('a gardener', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
-	}
-	for (const path of API_STAFF_ONLY) {
-		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
-	}
-	for (const path of API_FOR_GARDENERS) {
-		it(`GET ${path} is 200 with only their own plants`, async () => {
-			const res = await get(path, gardener);
-			expect(res.status).toBe(200);
-			const body = await res.json();
-			const own = await fetch(`${baseUrl()}${path}?claimed=no`, { headers: { cookie: gardener } }).then((r) => r.json());
-			expect(own.total).toBe(0);
-			expect(body.plants.every((p: { claimed: boolean }) => p.claimed)).toBe(true);
-		});
 	}
 	for (const action of ['/nursery/team?/invite', '/nursery/team?/role']) {
 		it(`POST ${action} is 403`, async () => {
@@ -126,8 +120,41 @@ describe('a gardener', () => {
 	});
 });
 
+describe('the JSON API', () => {
+	for (const { path, method, roles } of API) {
+		it(`${method} ${path} signed out is 401 in the API's error shape`, async () => {
+			const res = await apiCall(method, path);
+			expect(res.status).toBe(401);
+			expect(((await res.json()) as { error: { message: string } }).error.message).toBeTruthy();
+		});
+		if (roles !== 'signed-in') {
+			it(`${method} ${path} is 403 for a gardener`, async () => expect((await apiCall(method, path, gardener)).status).toBe(403));
+		}
+		if (roles === 'owner') {
+			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
+		}
+	}
+	it('GET /api/v1/plants for a gardener is 200 with only plants they claimed', async () => {
+		const res = await apiCall('GET', '/api/v1/plants?claimed=no', gardener);
+		expect(res.status).toBe(200);
+		expect(((await res.json()) as { total: number }).total).toBe(0);
+	});
+	for (const path of ['/api/v1/plants', '/api/v1/plants.csv']) {
+		it(`GET ${path} is 200 for staff`, async () => expect((await apiCall('GET', path, staff)).status).toBe(200));
+	}
+	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example', cookie: staff },
+			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
+		});
+		expect(res.status).toBe(403);
+	});
+});
+
 describe('staff', () => {
-	for (const path of [...STAFF_ONLY, ...API_FOR_GARDENERS, ...API_STAFF_ONLY]) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
+	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
 });
 

@@ -11,6 +11,8 @@ import type { PlantSort, SortOrder } from '../../schema/plant-table';
 /** The filters once resolved to ids and dates by the service. */
 export interface PlantTableWhere {
 	gardenerId?: number;
+	/** Leave out archived plants (a gardener's own list does; the nursery's table shows them, marked). */
+	activeOnly?: boolean;
 	cultivarId?: number;
 	stage?: string;
 	marketDayId?: number;
@@ -32,6 +34,7 @@ export const startedOn = sql`(${plants.soldOn} - ${plants.ageAtSaleWeeks} * 7)`;
 function whereOf(w: PlantTableWhere): SQL | undefined {
 	return and(
 		w.gardenerId !== undefined ? eq(plants.gardenerId, w.gardenerId) : undefined,
+		w.activeOnly ? isNull(plants.archivedAt) : undefined,
 		w.cultivarId !== undefined ? eq(plants.cultivarId, w.cultivarId) : undefined,
 		w.stage !== undefined ? eq(plants.stage, w.stage) : undefined,
 		w.marketDayId !== undefined

@@ -27,7 +27,7 @@ export function makePlantTableService({ repository, today }: PlantTableDeps) {
 	/** The filters as column values; an unknown cultivar or market day is refused by name. */
 	async function whereFor(filters: PlantTableFilters, viewer: Viewer, day: string): Promise<PlantTableWhere> {
 		const where: PlantTableWhere = {};
-		if (viewer.role === 'gardener') where.gardenerId = viewer.id;
+		if (viewer.role === 'gardener') Object.assign(where, { gardenerId: viewer.id, activeOnly: true });
 		if (filters.cultivar !== undefined) {
 			where.cultivarId = await repository.cultivarIdBySlug(filters.cultivar);
 			if (where.cultivarId === undefined) throw new UserFacingError('cultivar', 'Unknown cultivar: choose one listed by GET /api/v1/cultivars');

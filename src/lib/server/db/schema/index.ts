@@ -4,3 +4,6 @@ export * from './catalogue';
 export * from './stock';
 export * from './plants';
 export * from './plans';
+export * from './secrets';
+export * from './uploads';
+export * from './milestones';
