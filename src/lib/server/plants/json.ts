@@ -2,6 +2,7 @@
 import type { StepMove } from '$lib/plants/plan-diff';
 import { bunchMassGrams, bunchMassUnit } from '$lib/plants/milestones';
 import type { Units } from '$lib/care';
+import { STAGES } from '$lib/plan-text';
 import type { PlanStepRow } from '../plans/repository';
 import type { MilestoneRow, PlantRow } from './plant-repository';
 
@@ -17,7 +18,7 @@ export function plantJson(p: { plant: PlantRow; cultivarName: string; cultivarSl
 		climate: p.climateSlug ?? (plant.customMonthlyMeanC ? { monthlyMeanC: plant.customMonthlyMeanC } : null),
 		units: plant.units,
 		archived: plant.archivedAt !== null,
-		stage: plant.stage,
+		stage: plant.stage ? { id: plant.stage, label: STAGES.find((s) => s.stage === plant.stage)?.label ?? plant.stage } : null,
 		nextStep: plant.nextStepOn ? { on: plant.nextStepOn, kind: plant.nextStepKind } : null,
 		lastMilestone: plant.lastMilestoneOn ? { on: plant.lastMilestoneOn, kind: plant.lastMilestoneKind } : null,
 		parentPlantId: plant.parentPlantId,
