@@ -6,6 +6,7 @@ import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
 import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
+import { seedSales } from './seed-sales';
 
 export async function seedDemo(url: string): Promise<void> {
 	const client = postgres(url, { max: 1, onnotice: () => {} });
@@ -31,6 +32,7 @@ export async function seedDemo(url: string): Promise<void> {
 			.insert(users)
 			.values(DEMO_ACCOUNTS.map((a) => ({ ...a, role: a.role as 'owner' | 'staff' | 'gardener', passwordHash, emailVerifiedAt: now })))
 			.onConflictDoNothing({ target: users.email });
+		await seedSales(db);
 	} finally {
 		await client.end();
 	}

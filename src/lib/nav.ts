@@ -6,16 +6,21 @@ export interface NavLink {
 }
 
 const publicLinks: NavLink[] = [
+	{ href: '/cultivars', label: 'Cultivars' },
 	{ href: '/planner', label: 'Year planner' },
 	{ href: '/guides', label: 'Guides' }
 ];
 
 const byRole: Record<Role, NavLink[]> = {
 	gardener: [{ href: '/plants', label: 'My plants' }],
-	staff: [{ href: '/nursery/stall', label: 'Stall' }],
+	staff: [
+		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/stock', label: 'Stock' }
+	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/stock', label: 'Stock' },
 		{ href: '/nursery/team', label: 'Team' }
 	]
 };

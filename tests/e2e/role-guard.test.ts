@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/stock', '/nursery/sales/1/card'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
@@ -18,6 +18,8 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' }
 ];
+/** Pages anyone may open whose actions need an account (the claim page shows the plant first). */
+const ACTIONS_SIGNED_IN = ['/claim/abcdefghijklmnopqrstuvwxyz234567'];
 const apiCall = (method: string, path: string, cookie?: string) =>
 	fetch(`${baseUrl()}${path}`, {
 		method,
@@ -58,7 +60,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1').replace('[code]', 'abcdefghijklmnopqrstuvwxyz234567');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -77,7 +79,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path)]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path), ...ACTIONS_SIGNED_IN]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -86,6 +88,13 @@ describe('signed out', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]) {
 		it(`GET ${path} redirects to sign-in`, async () => {
 			const res = await get(path);
+			expect(res.status).toBe(303);
+			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+		});
+	}
+	for (const path of ACTIONS_SIGNED_IN) {
+		it(`POST ${path} redirects to sign-in`, async () => {
+			const res = await post(path);
 			expect(res.status).toBe(303);
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
@@ -101,7 +110,7 @@ describe('a gardener', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
 	}
-	for (const action of ['/nursery/team?/invite', '/nursery/team?/role']) {
+	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', '/nursery/stall?/sell', '/nursery/stall?/undo', '/nursery/stock?/receive', '/nursery/stock?/adjust', '/nursery/stock?/move', '/nursery/stock?/marketDay', '/nursery/sales/1/card?/resend', '/nursery/sales/1/card?/reissue']) {
 		it(`POST ${action} is 403`, async () => {
 			const res = await post(action, gardener);
 			expect(res.status).toBe(403);
@@ -147,6 +156,7 @@ describe('the JSON API', () => {
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	it('POST /nursery/stock?/receive (the owner receives stock) is 403', async () => expect((await post('/nursery/stock?/receive', staff)).status).toBe(403));
 });
 
 describe('the owner', () => {

@@ -3,21 +3,24 @@ import { acceptInviteSchema, signUpSchema, tokenField } from '$lib/schema/auth';
 import { accounts } from '$lib/server/accounts/service';
 import { startSession } from '$lib/server/auth';
 import { runForm } from '$lib/server/forms';
-import { HOME_FOR } from '$lib/nav';
+import { HOME_FOR, safeNext } from '$lib/nav';
 import type { Actions, PageServerLoad } from './$types';
 
 // Public: anyone may create a gardener account; an invitation link pre-fills a staff account.
 export const load: PageServerLoad = async ({ url }) => {
 	const token = url.searchParams.get('invite');
-	if (!token) return { invite: null };
+	// Where to go once the account is confirmed (e.g. back to a plant's claim page).
+	const next = safeNext(url.searchParams.get('next'), '') || null;
+	if (!token) return { invite: null, next };
 	const inv = tokenField.safeParse(token).success ? await accounts.findInvitation(token) : undefined;
-	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const } };
+	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const }, next };
 };
 
 export const actions: Actions = {
 	// Public: sign-up.
-	create: async ({ request, getClientAddress }) => {
-		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, getClientAddress()));
+	create: async ({ request, getClientAddress, url }) => {
+		const next = safeNext(url.searchParams.get('next'), '') || undefined;
+		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, getClientAddress(), new Date(), next));
 		return failure ?? { sentTo: result.email };
 	},
 	// Public: the invitation token is the credential.

@@ -44,16 +44,19 @@ async function deliver(m: Message, whenRefused: 'silently' | 'loudly', afterFail
 	}
 }
 
-const verificationMail = (user: Pick<UserRow, 'email' | 'name'>, token: string): Message => ({
+/** The confirmation link; `next` (a same-site path, checked by the caller) is where sign-in leads after. */
+const verifyLink = (token: string, next?: string) => absoluteUrl(`/verify?token=${token}${next ? `&next=${encodeURIComponent(next)}` : ''}`);
+
+const verificationMail = (user: Pick<UserRow, 'email' | 'name'>, token: string, next?: string): Message => ({
 	to: user.email,
 	subject: 'Confirm your e-mail for Bunchline',
-	text: `Hello ${user.name},\n\nConfirm your e-mail address to start using your care plans:\n\n${absoluteUrl(`/verify?token=${token}`)}\n\nThe link works once and expires in 48 hours. If you did not sign up, ignore this message.\n\nBunchline`
+	text: `Hello ${user.name},\n\nConfirm your e-mail address to start using your care plans:\n\n${verifyLink(token, next)}\n\nThe link works once and expires in 48 hours. If you did not sign up, ignore this message.\n\nBunchline`
 });
 
 const RESEND_HINT = 'ask for a new confirmation link from the sign-in page in a few minutes';
 
 export const accounts = {
-	async signUp(input: { name: string; email: string; password: string }, ip: string, now = new Date()) {
+	async signUp(input: { name: string; email: string; password: string }, ip: string, now = new Date(), next?: string) {
 		if (!(await consume(limitKeys.signUpAddress(ip), LIMITS.signUpsPerAddress)).allowed) {
 			throw new UserFacingError('form', 'Too many new accounts from this connection: try again in an hour', 429);
 		}
@@ -63,7 +66,7 @@ export const accounts = {
 			if (!user) throw new UserFacingError('email', 'An account with this e-mail already exists: sign in or reset your password', 409);
 			return { user, token: await issueToken(user.id, 'verify-email', now, tx) };
 		});
-		await deliver(verificationMail(user, token), 'loudly', `Your account is created, but the confirmation e-mail could not be sent: ${RESEND_HINT}`);
+		await deliver(verificationMail(user, token, next), 'loudly', `Your account is created, but the confirmation e-mail could not be sent: ${RESEND_HINT}`);
 		return user;
 	},
 

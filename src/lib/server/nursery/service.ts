@@ -1,4 +1,4 @@
-import { defaultFeeding, findClimate, type FeedingSettings } from '../../care';
+import { defaultFeeding, findClimate, referenceClimateSlug, type FeedingSettings } from '../../care';
 import { nurseryRepository } from './repository';
 
 type Settings = NonNullable<Awaited<ReturnType<typeof nurseryRepository.settings>>>;
@@ -23,9 +23,9 @@ export const nurseryService = {
 	feedingSettings: async () => feedingOf(await nurseryRepository.settings()),
 	publicProfile: async () => profileOf(await nurseryRepository.settings()),
 	/** What the planner needs of the settings, from one read. */
-	async planningContext(): Promise<{ feeding: FeedingSettings; timeZone: string }> {
+	async planningContext(): Promise<{ feeding: FeedingSettings; timeZone: string; defaultClimate: string }> {
 		const s = await nurseryRepository.settings();
-		return { feeding: feedingOf(s), timeZone: s?.timeZone ?? 'UTC' };
+		return { feeding: feedingOf(s), timeZone: s?.timeZone ?? 'UTC', defaultClimate: s?.defaultClimate ?? referenceClimateSlug };
 	},
 	/** What the owner's dashboard shows of the settings, from one read, with the climate by name. */
 	async dashboard() {

@@ -34,6 +34,7 @@ export interface SalesDeps {
 export interface PlantLink {
 	id: number;
 	claimed: boolean;
+	ageAtSaleWeeks: number;
 	claimLink: string;
 }
 
@@ -48,6 +49,7 @@ export interface SaleView {
 	pricePerPlant: number;
 	buyerEmail: string | null;
 	undone: boolean;
+	recordedAt: string;
 	/** Until when DELETE /api/v1/sales/[id] (undo) is accepted. */
 	undoableUntil: string;
 }
@@ -66,6 +68,7 @@ export function saleView(s: SaleRow): SaleView {
 		pricePerPlant: fromCents(s.pricePerPlantCents),
 		buyerEmail: s.buyerEmail,
 		undone: s.undoneAt !== null,
+		recordedAt: s.createdAt.toISOString(),
 		undoableUntil: new Date(s.createdAt.getTime() + UNDO_MS).toISOString()
 	};
 }
@@ -89,7 +92,7 @@ export function createSalesService(deps: SalesDeps) {
 
 	async function links(saleId: number): Promise<PlantLink[]> {
 		const secret = await deps.secret();
-		return (await repo.plantsOfSale(saleId)).map((p) => ({ id: p.id, claimed: p.claimedAt !== null, claimLink: deps.link(claimPath(claimCode(secret, p.id, p.claimVersion))) }));
+		return (await repo.plantsOfSale(saleId)).map((p) => ({ id: p.id, claimed: p.claimedAt !== null, ageAtSaleWeeks: p.ageAtSaleWeeks, claimLink: deps.link(claimPath(claimCode(secret, p.id, p.claimVersion))) }));
 	}
 
 	async function mailLinks(sale: SaleView, plants: PlantLink[], to: string): Promise<boolean> {
