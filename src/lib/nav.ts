@@ -12,15 +12,20 @@ const publicLinks: NavLink[] = [
 ];
 
 const byRole: Record<Role, NavLink[]> = {
-	gardener: [{ href: '/plants', label: 'My plants' }],
+	gardener: [
+		{ href: '/plants', label: 'My plants' },
+		{ href: '/settings', label: 'Settings' }
+	],
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },
-		{ href: '/nursery/stock', label: 'Stock' }
+		{ href: '/nursery/stock', label: 'Stock' },
+		{ href: '/nursery/plants', label: 'Plants sold' }
 	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/stock', label: 'Stock' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' }
 	]
 };

@@ -49,7 +49,7 @@ export function plantFilters(scope: PlantScope): SQL[] {
 export function plantsRepository(db: AnyDb) {
 	const base = () => listQuery(db);
 	return {
-		page: (where: SQL[], limit: number, offset: number): Promise<PlantListRow[]> =>
+		page: (where: SQL[], limit: number, offset: number) =>
 			base()
 				.where(and(...where))
 				.orderBy(sql`${plants.plantedOn} desc nulls last`, desc(plants.soldOn), asc(plants.id))

@@ -1,6 +1,7 @@
 /**
- * Plants as their owners and the nursery see them: a page of plants for a scope (a gardener's own,
- * or all for staff), each with its stage and next step from `plantStatus`. A gardener asking for a
+ * One plant as its owner and the nursery see it, in a scope (a gardener's own, or all for staff),
+ * with its stage and next step from `plantStatus`. Lists of plants, with filters, sorting and
+ * counts over the stored stage and next step, are the nursery table's (src/lib/server/plant-table). A gardener asking for a
  * plant that is not theirs gets the same 404 as for one that does not exist.
  */
 import { eq } from 'drizzle-orm';
@@ -20,12 +21,6 @@ export interface PlantsDeps {
 	db: AnyDb;
 	cultivarById: (id: number) => Promise<{ cultivar: Cultivar } | undefined>;
 	feeding: () => Promise<FeedingSettings>;
-}
-
-/** Paging now; the nursery's table adds filters and a sort order to this query. */
-export interface PlantQuery {
-	page: number;
-	size: number;
 }
 
 export interface PlantView extends PlantStatus {
@@ -75,7 +70,11 @@ export function createPlantsService({ db, cultivarById, feeding }: PlantsDeps) {
 	}
 
 	return {
-		async page(scope: PlantScope, query: PlantQuery, today: string) {
+		/**
+		 * A page of plants in a scope with their status, for "My plants". The nursery's table and
+		 * the API list through the plant table's service instead (filters, sort, stored stages).
+		 */
+		async page(scope: PlantScope, query: { page: number; size: number }, today: string) {
 			const where = plantFilters(scope);
 			const total = await repo.count(where);
 			// A page past the end shows the last page rather than an empty list.

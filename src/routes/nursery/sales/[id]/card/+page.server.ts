@@ -29,8 +29,9 @@ export const load: PageServerLoad = async (event) => {
 	requireUser(event, ...STAFF_ROLES);
 	const { sale, plants } = await saleOr404(event.params.id);
 	if (sale.undone) error(410, 'This sale was undone: its plants went back in stock and have no cards');
-	const [{ feeding, defaultClimate }, profile, stored] = await Promise.all([
+	const [{ feeding }, { defaultClimate }, profile, stored] = await Promise.all([
 		nurseryService.planningContext(),
+		catalogueService.settings(),
 		nurseryService.publicProfile(),
 		catalogueService.cultivarBySlug(sale.cultivar.slug)
 	]);
