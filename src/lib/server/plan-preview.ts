@@ -11,6 +11,7 @@ import {
 	findClimate,
 	findCultivar,
 	referenceClimateSlug,
+	PlanInputError,
 	type Cultivar,
 	type FeedingSettings,
 	type Plan,
@@ -46,7 +47,8 @@ export function toPlanInput(request: PlanRequest, feeding: FeedingSettings = def
 		climate: { monthlyMeanC },
 		units: request.units ?? 'metric',
 		feeding,
-		...(request.observed ? { observed: request.observed } : {})
+		...(request.observed ? { observed: request.observed } : {}),
+		...(request.observedFollowers ? { observedFollowers: request.observedFollowers } : {})
 	};
 }
 
@@ -130,6 +132,16 @@ function formValues(raw: QueryValues): PlannerValues {
 	};
 }
 
+/** Engine refusals keyed like the form's fields (the query string is flat: `shotOn`, `monthlyMeanC.3`). */
+function planInputFieldErrors(error: PlanInputError): FieldErrors {
+	const out: FieldErrors = {};
+	for (const issue of error.issues) {
+		const path = issue.path[0] === 'observed' || issue.path[0] === 'climate' ? issue.path.slice(1) : issue.path;
+		out[path.join('.') || 'form'] ??= issue.message;
+	}
+	return out;
+}
+
 /** The year planner page: the query string is the form, so every plan has a shareable URL. */
 export function plannerView(params: URLSearchParams, today = todayIso(), feeding?: FeedingSettings): PlannerView {
 	const asked = queryValues(params);
@@ -144,7 +156,14 @@ export function plannerView(params: URLSearchParams, today = todayIso(), feeding
 		climateOptions: climates.map(({ slug, name }) => ({ slug, name }))
 	};
 	if (!parsed.success) return { ...base, errors: fieldErrors(parsed.error), result: null };
-	const preview = previewPlan(parsed.data, feeding);
+	let preview: PlanPreview;
+	try {
+		preview = previewPlan(parsed.data, feeding);
+	} catch (e) {
+		// The schema asks what the engine asks, so this is a safety net: a refusal is a field error, not a 500.
+		if (e instanceof PlanInputError) return { ...base, errors: planInputFieldErrors(e), result: null };
+		throw e;
+	}
 	return {
 		...base,
 		errors: {},
