@@ -4,7 +4,7 @@ import { UNITS } from '../../../care/vocabulary';
 export const roleEnum = pgEnum('role', ['owner', 'staff', 'gardener']);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
 
-const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
+import { createdAt } from './columns';
 
 export const users = pgTable(
 	'users',
