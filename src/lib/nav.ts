@@ -11,7 +11,10 @@ const publicLinks: NavLink[] = [
 ];
 
 const byRole: Record<Role, NavLink[]> = {
-	gardener: [{ href: '/plants', label: 'My plants' }],
+	gardener: [
+		{ href: '/plants', label: 'My plants' },
+		{ href: '/settings', label: 'Settings' }
+	],
 	staff: [{ href: '/nursery/stall', label: 'Stall' }],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
