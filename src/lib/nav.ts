@@ -15,10 +15,14 @@ const byRole: Record<Role, NavLink[]> = {
 		{ href: '/plants', label: 'My plants' },
 		{ href: '/settings', label: 'Settings' }
 	],
-	staff: [{ href: '/nursery/stall', label: 'Stall' }],
+	staff: [
+		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' }
+	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' }
 	]
 };
