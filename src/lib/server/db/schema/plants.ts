@@ -50,6 +50,8 @@ export const plants = pgTable(
 		index('plants_parent_idx').on(t.parentPlantId),
 		index('plants_next_step_idx').on(t.nextStepOn, t.id),
 		index('plants_stage_idx').on(t.stage, t.nextStepOn, t.id),
+		// Cultivar and stage together: the filtered page in next-step order, and its count from the index alone.
+		index('plants_cultivar_stage_idx').on(t.cultivarId, t.stage, t.nextStepOn, t.id),
 		// The table's other sorts, each with the id as tie-breaker so a page is one index scan.
 		index('plants_sold_on_idx').on(t.soldOn, t.id),
 		index('plants_last_milestone_idx').on(t.lastMilestoneOn, t.id),
