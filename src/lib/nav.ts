@@ -15,11 +15,15 @@ const byRole: Record<Role, NavLink[]> = {
 		{ href: '/plants', label: 'My plants' },
 		{ href: '/settings', label: 'Settings' }
 	],
-	staff: [{ href: '/nursery/stall', label: 'Stall' }],
+	staff: [
+		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/reminders', label: 'Reminders' }
+	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
-		{ href: '/nursery/team', label: 'Team' }
+		{ href: '/nursery/team', label: 'Team' },
+		{ href: '/nursery/reminders', label: 'Reminders' }
 	]
 };
 
