@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall', '/nursery/reminders'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/plants', '/nursery/reminders'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants', '/settings'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
@@ -16,6 +16,7 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
@@ -140,6 +141,14 @@ describe('the JSON API', () => {
 		if (roles === 'owner') {
 			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
 		}
+	}
+	it('GET /api/v1/plants for a gardener is 200 with only plants they claimed', async () => {
+		const res = await apiCall('GET', '/api/v1/plants?claimed=no', gardener);
+		expect(res.status).toBe(200);
+		expect(((await res.json()) as { total: number }).total).toBe(0);
+	});
+	for (const path of ['/api/v1/plants', '/api/v1/plants.csv']) {
+		it(`GET ${path} is 200 for staff`, async () => expect((await apiCall('GET', path, staff)).status).toBe(200));
 	}
 	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
 		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
