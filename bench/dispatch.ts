@@ -101,7 +101,7 @@ async function main() {
 	});
 	await sleep(6000);
 	const started = performance.now();
-	await sql`update reminders set due_at = now() - interval '1 minute'`;
+	await sql`update reminders set due_at = due_at - interval '2 days'`;
 	for (;;) {
 		const [{ n }] = await sql<{ n: number }[]>`select count(*)::int as n from reminders where state = 'sent'`;
 		if (n >= N) break;
