@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall', '/nursery/plants', '/nursery/reminders'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/plants', '/nursery/plants/import', '/nursery/reminders'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants', '/settings'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
@@ -17,6 +17,7 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/past-sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
