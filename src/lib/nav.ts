@@ -19,14 +19,16 @@ const byRole: Record<Role, NavLink[]> = {
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/stock', label: 'Stock' },
-		{ href: '/nursery/plants', label: 'Plants sold' }
+		{ href: '/nursery/plants', label: 'Plants sold' },
+		{ href: '/nursery/reminders', label: 'Reminders' }
 	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/stock', label: 'Stock' },
 		{ href: '/nursery/plants', label: 'Plants sold' },
-		{ href: '/nursery/team', label: 'Team' }
+		{ href: '/nursery/team', label: 'Team' },
+		{ href: '/nursery/reminders', label: 'Reminders' }
 	]
 };
 

@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall', '/nursery/stock', '/nursery/sales/1/card', '/nursery/plants', '/nursery/plants/import'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/stock', '/nursery/sales/1/card', '/nursery/plants', '/nursery/plants/import', '/nursery/reminders'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants', '/settings'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
