@@ -7,7 +7,18 @@ import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall'];
-const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
+const CATALOGUE_PAGES = ['/nursery/cultivars', '/nursery/cultivars/new', '/nursery/cultivars/grand-nain', '/nursery/climates', '/nursery/settings'];
+const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml', ...CATALOGUE_PAGES, '/nursery/climates/grand-nain'];
+/** Owner-only form actions: gardeners and staff get 403 and nothing is written. */
+const OWNER_ACTIONS = [
+	'/nursery/cultivars/new',
+	'/nursery/cultivars/grand-nain?/save',
+	'/nursery/cultivars/grand-nain?/retire',
+	'/nursery/climates',
+	'/nursery/climates/grand-nain?/save',
+	'/nursery/climates/grand-nain?/delete',
+	'/nursery/settings'
+];
 const SIGNED_IN = ['/plants'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
@@ -58,7 +69,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1').replace('[slug]', 'grand-nain');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -101,7 +112,7 @@ describe('a gardener', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
 	}
-	for (const action of ['/nursery/team?/invite', '/nursery/team?/role']) {
+	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', ...OWNER_ACTIONS]) {
 		it(`POST ${action} is 403`, async () => {
 			const res = await post(action, gardener);
 			expect(res.status).toBe(403);
@@ -147,10 +158,11 @@ describe('the JSON API', () => {
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	for (const action of OWNER_ACTIONS) it(`POST ${action} is 403`, async () => expect((await post(action, staff)).status).toBe(403));
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...CATALOGUE_PAGES]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });
