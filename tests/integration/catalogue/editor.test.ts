@@ -14,6 +14,7 @@ import { UserFacingError } from '../../../src/lib/server/errors';
 import { POST as postPreview } from '../../../src/routes/api/v1/plan-preview/+server';
 import { insertGardener, insertPlant } from '../../helpers/plants';
 import { postJson, validBody } from '../api/helpers';
+import { SETTINGS_FIELDS, WARM_MEANS } from '../../helpers/catalogue';
 
 async function formFor(slug: string, overrides: Record<string, string>) {
 	const stored = (await catalogueService.cultivarBySlug(slug))!;
@@ -29,15 +30,11 @@ async function refusal(p: Promise<unknown>): Promise<UserFacingError> {
 	return e;
 }
 
-const means = ['19', '19.5', '21', '23', '25', '27', '28', '28', '27', '25', '22', '20'];
+const means = WARM_MEANS;
 const settingsForm = (overrides: Record<string, unknown> = {}) =>
 	settingsFormSchema.parse({
-		name: 'Kestrel Hollow Bananas',
-		town: 'Marrowby',
-		market: 'Marrowby Quay Saturday Market',
+		...SETTINGS_FIELDS,
 		timeZone: 'Pacific/Auckland',
-		units: 'metric',
-		defaultClimate: 'south-florida-coast',
 		fertilizerName: 'Test mix',
 		npkN: '10',
 		npkP: '5',
@@ -45,7 +42,6 @@ const settingsForm = (overrides: Record<string, unknown> = {}) =>
 		fullRationG: '500',
 		handfulG: '50',
 		restrictedMonths: ['7', '6'],
-		nitrogenCapKgPer100m2: '',
 		...overrides
 	});
 

@@ -5,6 +5,7 @@ import { applyCultivarEdit, cultivarFormValues, slugify, valueText, type Editabl
 import { climateFormSchema, cultivarFormSchema, settingsFormSchema } from '$lib/schema/catalogue';
 import { fieldErrors } from '$lib/schema/form';
 import { cultivarToRow } from '$lib/server/catalogue/mapping';
+import { SETTINGS_FIELDS, WARM_MEANS } from '../../helpers/catalogue';
 
 const stored: EditableCultivar = { ...cultivarToRow(referenceCultivar()), usualPriceCents: 1250 };
 const validCultivar = () => cultivarFormValues(stored);
@@ -13,22 +14,7 @@ const errorsOf = (schema: { safeParse: (v: unknown) => { success: boolean; error
 	return r.success ? {} : fieldErrors(r.error as never);
 };
 
-const validSettings = {
-	name: 'Kestrel Hollow Bananas',
-	town: 'Marrowby',
-	market: 'Marrowby Quay Saturday Market',
-	timeZone: 'Europe/Lisbon',
-	units: 'metric',
-	defaultClimate: 'south-florida-coast',
-	fertilizerName: 'Banana mix',
-	npkN: '8',
-	npkP: '10',
-	npkK: '16',
-	fullRationG: '907',
-	handfulG: '100',
-	restrictedMonths: ['6', '7'],
-	nitrogenCapKgPer100m2: ''
-};
+const validSettings = { ...SETTINGS_FIELDS, timeZone: 'Europe/Lisbon', restrictedMonths: ['6', '7'] };
 
 describe('cultivar form', () => {
 	it('accepts the stored values of a built-in cultivar as they are shown', () => {
@@ -88,7 +74,7 @@ describe('an edit of a cultivar', () => {
 });
 
 describe('climate form', () => {
-	const means = ['19', '19.5', '21', '23', '25', '27', '28', '28', '27', '25', '22', '20'];
+	const means = WARM_MEANS;
 	it('reads twelve inputs and needs a source note', () => {
 		expect(climateFormSchema.safeParse({ name: 'Valley', monthlyMeanC: means, sourceNote: 'station, 1991–2020' }).success).toBe(true);
 		expect(Object.keys(errorsOf(climateFormSchema, { name: 'Valley', monthlyMeanC: means, sourceNote: '' }))).toEqual(['sourceNote']);
