@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall', '/nursery/plants'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/plants', '/nursery/plants/import'];
 const CATALOGUE_PAGES = ['/nursery/cultivars', '/nursery/cultivars/new', '/nursery/cultivars/grand-nain', '/nursery/climates', '/nursery/settings'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml', ...CATALOGUE_PAGES, '/nursery/climates/grand-nain'];
 /** Owner-only form actions: gardeners and staff get 403 and nothing is written. */
@@ -28,6 +28,7 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/past-sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },

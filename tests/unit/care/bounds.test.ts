@@ -1,84 +1,72 @@
-// The owner's bounds: every built-in value inside them, a source for each, and the engine plans at every extreme.
+/**
+ * One source for every bound: whatever the shared schema accepts, the engine plans, and whatever
+ * the engine refuses, the schema refuses first (so no path can turn a refusal into a 500).
+ */
 import { describe, expect, it } from 'vitest';
-import {
-	CULTIVAR_PARAMETER_BOUNDS,
-	CULTIVAR_PARAMETER_NAMES,
-	FEEDING_SETTING_BOUNDS,
-	climates,
-	computePlan,
-	cultivars,
-	defaultFeeding,
-	referenceCultivar,
-	type Cultivar
-} from '../../../src/lib/care';
+import fc from 'fast-check';
+import { computePlan } from '../../../src/lib/care/plan';
+import { PlanInputError } from '../../../src/lib/care/validate';
+import { PLAN_BOUNDS } from '../../../src/lib/care/vocabulary';
+import { climates, findCultivar } from '../../../src/lib/care/catalogue';
+import { planBodySchema } from '../../../src/lib/schema/plan';
 
-const SOURCE = /from memory|published|common practice, no source|\(\w[^)]*\d{4}/;
+const near = (min: number, max: number) =>
+	fc.oneof(fc.constantFrom(min - 1, min, max, max + 1, min + 0.5), fc.double({ min: min - 5, max: max + 5, noNaN: true }));
+const day = fc.integer({ min: 1, max: 28 }).map((d) => String(d).padStart(2, '0'));
+const date = fc
+	.tuple(fc.integer({ min: PLAN_BOUNDS.year.min - 2, max: PLAN_BOUNDS.year.max + 2 }), fc.integer({ min: 1, max: 12 }), day)
+	.map(([y, m, d]) => `${String(y).padStart(4, '0')}-${String(m).padStart(2, '0')}-${d}`);
+const nearbyDate = fc.tuple(fc.integer({ min: 2024, max: 2032 }), fc.integer({ min: 1, max: 12 }), day).map(([y, m, d]) => `${y}-${String(m).padStart(2, '0')}-${d}`);
+const randomMilestones = fc.record(
+	{ flagLeafOn: nearbyDate, shotOn: nearbyDate, harvestedOn: nearbyDate, cutBackOn: nearbyDate, lostOn: nearbyDate, leafCount: fc.record({ on: nearbyDate, leaves: near(0, 80) }) },
+	{ requiredKeys: [] }
+);
+/** A stem's log in life order, days after 2026-01-01. */
+const orderedMilestones = fc.array(fc.integer({ min: 0, max: 900 }), { minLength: 3, maxLength: 3 }).map((offsets) => {
+	const [flag, shot, harvest] = offsets.sort((a, b) => a - b).map((d) => new Date(Date.UTC(2026, 0, 1 + d)).toISOString().slice(0, 10));
+	return { flagLeafOn: flag, shotOn: shot, harvestedOn: harvest };
+});
+const milestones = fc.oneof(orderedMilestones, randomMilestones);
 
-describe('cultivar parameter bounds', () => {
-	it('cover every plan parameter of the engine, each with min < max and where it comes from', () => {
-		const engineParameters = Object.entries(referenceCultivar())
-			.filter(([, v]) => typeof v === 'object' && v !== null && 'value' in v)
-			.map(([k]) => k)
-			.sort();
-		expect([...CULTIVAR_PARAMETER_NAMES].sort()).toEqual(engineParameters);
-		for (const name of CULTIVAR_PARAMETER_NAMES) {
-			const b = CULTIVAR_PARAMETER_BOUNDS[name];
-			expect(b.min, name).toBeLessThan(b.max);
-			expect(b.source, name).toMatch(SOURCE);
-		}
-	});
-
-	it('hold every built-in cultivar value', () => {
-		for (const c of cultivars)
-			for (const name of CULTIVAR_PARAMETER_NAMES) {
-				const { min, max, integer } = CULTIVAR_PARAMETER_BOUNDS[name];
-				const v = c[name].value;
-				expect(v, `${c.slug} ${name}`).toBeGreaterThanOrEqual(min);
-				expect(v, `${c.slug} ${name}`).toBeLessThanOrEqual(max);
-				if (integer) expect(Number.isInteger(v), `${c.slug} ${name}`).toBe(true);
-			}
-	});
-
-	it('the engine plans a cultivar at every corner of the bounds, in every built-in climate, harvest after shooting', () => {
-		const corners = CULTIVAR_PARAMETER_NAMES.reduce<Record<string, number>[]>(
-			(acc, name) => acc.flatMap((partial) => [CULTIVAR_PARAMETER_BOUNDS[name].min, CULTIVAR_PARAMETER_BOUNDS[name].max].map((v) => ({ ...partial, [name]: v }))),
-			[{}]
-		);
-		expect(corners).toHaveLength(2 ** CULTIVAR_PARAMETER_NAMES.length);
-		for (const corner of corners) {
-			const cultivar: Cultivar = { ...referenceCultivar() };
-			for (const [name, value] of Object.entries(corner)) (cultivar as unknown as Record<string, unknown>)[name] = { value, source: { kind: 'nursery' } };
-			for (const climate of climates) {
-				const plan = computePlan({ cultivar, plantedOn: '2026-03-15', ageAtPlantingWeeks: 12, climate, feeding: defaultFeeding });
-				const shooting = plan.steps.find((s) => s.kind === 'shooting' && s.generation === 0)!;
-				const harvest = plan.steps.find((s) => s.kind === 'harvest' && s.generation === 0)!;
-				expect(harvest.likely > shooting.likely, `${JSON.stringify(corner)} in ${climate.slug}`).toBe(true);
-			}
-		}
-	});
+const body = fc.record({
+	cultivar: fc.constant('grand-nain'),
+	plantedOn: fc.oneof(date, fc.constant('2025-03-15')),
+	ageAtPlantingWeeks: fc.oneof(near(PLAN_BOUNDS.ageAtPlantingWeeks.min, PLAN_BOUNDS.ageAtPlantingWeeks.max), fc.integer({ min: 0, max: 104 })),
+	climate: fc.oneof(
+		fc.constantFrom(...climates.map((c) => ({ monthlyMeanC: c.monthlyMeanC }))),
+		fc.array(near(PLAN_BOUNDS.monthlyMeanC.min, PLAN_BOUNDS.monthlyMeanC.max), { minLength: 12, maxLength: 12 }).map((m) => ({ monthlyMeanC: m })),
+		fc.array(fc.double({ min: 12, max: 30, noNaN: true }), { minLength: 12, maxLength: 12 }).map((m) => ({ monthlyMeanC: m }))
+	),
+	observed: fc.option(milestones, { nil: undefined, freq: 2 }),
+	observedFollowers: fc.option(fc.array(milestones, { maxLength: 2 }), { nil: undefined, freq: 2 })
 });
 
-describe('feeding setting bounds', () => {
-	it("hold the engine's own defaults and say where they come from", () => {
-		const F = FEEDING_SETTING_BOUNDS;
-		for (const v of defaultFeeding.npk) expect(v).toBeLessThanOrEqual(F.npkEach.max);
-		expect(defaultFeeding.fullRationG).toBeGreaterThanOrEqual(F.fullRationG.min);
-		expect(defaultFeeding.fullRationG).toBeLessThanOrEqual(F.fullRationG.max);
-		expect(defaultFeeding.handfulG).toBeGreaterThanOrEqual(F.handfulG.min);
-		expect(defaultFeeding.handfulG).toBeLessThanOrEqual(F.handfulG.max);
-		for (const b of [F.npkEach, F.fullRationG, F.handfulG, F.nitrogenCapKgPer100m2]) expect(b.source).toMatch(SOURCE);
-	});
+type Body = typeof body extends fc.Arbitrary<infer T> ? T : never;
 
-	it('the engine feeds with the extremes of the scoop, analysis and cap', () => {
-		const F = FEEDING_SETTING_BOUNDS;
-		for (const feeding of [
-			{ ...defaultFeeding, npk: [F.npkEach.max, F.npkTotalMax - F.npkEach.max, 0] as [number, number, number], fullRationG: F.fullRationG.max, handfulG: F.handfulG.max, nitrogenCapKgPer100m2: F.nitrogenCapKgPer100m2.min },
-			{ ...defaultFeeding, npk: [0, 0, F.npkEach.max] as [number, number, number], fullRationG: F.fullRationG.min, handfulG: F.handfulG.min, nitrogenCapKgPer100m2: F.nitrogenCapKgPer100m2.max }
-		]) {
-			const plan = computePlan({ cultivar: referenceCultivar(), plantedOn: '2026-03-15', ageAtPlantingWeeks: 12, climate: climates[0], feeding });
-			const feedings = plan.steps.filter((s) => s.kind === 'feeding');
-			expect(feedings.length).toBeGreaterThan(0);
-			for (const s of feedings) expect(s.amount!.value).toBeGreaterThan(0);
-		}
-	});
+function engineRefuses(b: Body): boolean {
+	try {
+		computePlan({ ...b, cultivar: findCultivar(b.cultivar)! });
+		return false;
+	} catch (e) {
+		if (e instanceof PlanInputError) return true;
+		throw e;
+	}
+}
+
+describe('schema and engine share their bounds', () => {
+	it('the schema accepts exactly what the engine plans', () => {
+		const seen = { accepted: 0, refused: 0 };
+		fc.assert(
+			fc.property(body, (b) => {
+				const clean = JSON.parse(JSON.stringify(b));
+				const accepted = planBodySchema.safeParse(clean).success;
+				seen[accepted ? 'accepted' : 'refused']++;
+				expect(accepted).toBe(!engineRefuses(clean));
+			}),
+			{ numRuns: 400, seed: 20261202 }
+		);
+		// Both sides of every bound were tried.
+		expect(seen.accepted).toBeGreaterThan(40);
+		expect(seen.refused).toBeGreaterThan(40);
+	}, 120_000);
 });

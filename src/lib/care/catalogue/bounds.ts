@@ -3,7 +3,7 @@
  * parameter and every feeding setting, with where each bound comes from. The zod schemas in
  * $lib/schema/catalogue and the owner's forms derive from these; a value outside them is refused
  * with a 400 naming the field. Every combination of extremes still gives a plan
- * (tests/unit/care/bounds.test.ts).
+ * (tests/unit/care/catalogue-bounds.test.ts).
  */
 import type { Cultivar, CultivarGroup, SizeClass } from '../types';
 
