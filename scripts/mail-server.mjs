@@ -3,8 +3,10 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { SMTPServer } from 'smtp-server';
 import { isMainModule } from './main-module.mjs';
+import { DEFAULTS, environmentOrExit } from '../src/lib/server/env.js';
 
-export function startMailServer({ port = 2525, dir = 'dev-mail' } = {}) {
+/** @param {{ port?: number, dir?: string }} [options] */
+export function startMailServer({ port = DEFAULTS.smtpPort, dir = DEFAULTS.mailDir } = {}) {
 	const out = resolve(dir);
 	mkdirSync(out, { recursive: true });
 	let counter = 0;
@@ -30,8 +32,8 @@ export function startMailServer({ port = 2525, dir = 'dev-mail' } = {}) {
 }
 
 if (isMainModule(import.meta.url)) {
-	const port = Number(process.env.SMTP_PORT ?? 2525);
-	const dir = process.env.MAIL_DIR ?? 'dev-mail';
+	const { mail, mailDir: dir } = environmentOrExit();
+	const port = mail.port;
 	await startMailServer({ port, dir });
 	console.log(`Fake mail service on 127.0.0.1:${port}, writing to ${dir}/`);
 }

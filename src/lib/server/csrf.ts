@@ -5,11 +5,15 @@
  */
 const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
-const COOKIELESS_PREFIXES = ['/api/v1/'];
+/**
+ * Only the public endpoints that never read a session are exempt; any other endpoint, under
+ * /api/ or not, gets the check, so a cookie-authenticated one cannot be driven by a cross-site form.
+ */
+export const COOKIELESS_ROUTES = new Set(['/api/v1/plan-preview', '/api/v1/plan-preview.ics', '/api/v1/cultivars', '/api/v1/climates']);
 
 export function isForbiddenCrossSiteForm(request: Request, url: URL): boolean {
 	if (!UNSAFE.has(request.method)) return false;
-	if (COOKIELESS_PREFIXES.some((p) => url.pathname.startsWith(p))) return false;
+	if (COOKIELESS_ROUTES.has(url.pathname)) return false;
 	const type = (request.headers.get('content-type') ?? '').split(';', 1)[0].trim().toLowerCase();
 	if (!FORM_TYPES.includes(type)) return false;
 	return request.headers.get('origin') !== url.origin;

@@ -19,6 +19,7 @@ import {
 import { CUSTOM_CLIMATE, planQuerySchema, planQueryString, queryValues, splitMeanValues, type PlanRequest, type QueryValues } from '$lib/schema/plan';
 import { fieldErrors, type FieldErrors } from '$lib/schema/form';
 import { formatDay } from '$lib/plan-text';
+import { byteCache } from './byte-cache';
 import { planCalendar, type CalendarFile } from './calendar';
 import { UserFacingError } from './errors';
 
@@ -57,15 +58,25 @@ export function previewPlan(request: PlanRequest, feeding?: FeedingSettings): Pl
 }
 
 /**
+ * Calendars already written, keyed by everything that goes into one. Writing the iCalendar text
+ * costs tens of milliseconds (the plan itself about one), so a public URL fetched again, by a
+ * subscribed calendar or by someone hammering it, is served from here. 32 MiB holds thousands.
+ */
+export const calendarCache = byteCache(32 * 1024 * 1024);
+
+/**
  * The preview as a calendar. Its identity is the plant (cultivar and planting day), not the
  * climate or logged milestones, so refining those later updates the same events.
  */
-export function previewCalendar(request: PlanRequest, origin?: string, feeding?: FeedingSettings): CalendarFile {
-	const { cultivar, plan } = previewPlan(request, feeding);
-	const ics = planCalendar(plan, {
-		identity: `preview|${request.cultivar}|${request.plantedOn}`,
-		name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
-		...(origin ? { origin } : {})
+export function previewCalendar(request: PlanRequest, origin?: string, feeding: FeedingSettings = defaultFeeding): CalendarFile {
+	const key = JSON.stringify([planQueryString(request), feeding, origin ?? null]);
+	const ics = calendarCache.through(key, () => {
+		const { cultivar, plan } = previewPlan(request, feeding);
+		return planCalendar(plan, {
+			identity: `preview|${request.cultivar}|${request.plantedOn}`,
+			name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
+			...(origin ? { origin } : {})
+		});
 	});
 	return { filename: `bunchline-${request.cultivar}-${request.plantedOn}.ics`, ics };
 }

@@ -23,4 +23,8 @@ describe('cross-site form check (OWASP CSRF Prevention Cheat Sheet: verify the O
 	it('leaves the cookie-less public API to answer bad bodies with its own 400', () => {
 		expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', null), url('/api/v1/plan-preview'))).toBe(false);
 	});
+	it('checks every other endpoint under /api/, which may read the session cookie', () => {
+		expect(isForbiddenCrossSiteForm(req('POST', 'text/plain', 'http://evil.example'), url('/api/v1/sales'))).toBe(true);
+		expect(isForbiddenCrossSiteForm(req('POST', 'text/plain', 'http://evil.example'), url('/api/v1/plan-preview/extra'))).toBe(true);
+	});
 });

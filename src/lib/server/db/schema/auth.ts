@@ -1,6 +1,7 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { ROLES } from '../../../schema/auth';
 
-export const roleEnum = pgEnum('role', ['owner', 'staff', 'gardener']);
+export const roleEnum = pgEnum('role', ROLES);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
@@ -62,6 +63,8 @@ export const invitations = pgTable(
 			.references(() => users.id, { onDelete: 'cascade' }),
 		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
 		acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+		/** Set when a newer invitation to the same address took this one's place; its link then says so. */
+		replacedAt: timestamp('replaced_at', { withTimezone: true }),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('invitations_hash_key').on(t.tokenHash), index('invitations_email_idx').on(t.email)]

@@ -1,4 +1,5 @@
-// Every protected page answers 403 to a gardener and sends a signed-out visitor to sign-in.
+// The role × route matrix (ASVS 8.2.1, 8.3.1): every protected page answers 403 to the wrong role
+// and sends a signed-out visitor to sign-in; the guard runs on the server for pages and actions.
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,7 +9,7 @@ import { baseUrl } from '../helpers/browser';
 
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants'];
+const SIGNED_IN = ['/plants', '/settings/account'];
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -106,6 +107,11 @@ describe('a gardener', () => {
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	it('a refused owner page says it is for the owner, not for staff', async () => {
+		const page = await (await get('/nursery/team', staff)).text();
+		expect(page).toContain("for the nursery's owner only");
+		expect(page).not.toContain('for nursery staff only');
+	});
 });
 
 describe('the owner', () => {
