@@ -92,7 +92,7 @@ function launch(name, args) {
 launch('mail service', ['scripts/mail-server.mjs']);
 // node --import tsx keeps the worker one process, so the stop signal reaches it directly.
 launch('reminder worker', ['--import', 'tsx', 'scripts/worker.ts']);
-launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['build/index.js']);
+launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['scripts/serve.mjs']);
 
 setTimeout(() => {
 	if (stopping) return;

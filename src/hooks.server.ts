@@ -1,11 +1,12 @@
 import { text, type Handle, type ServerInit } from '@sveltejs/kit';
 import { validateSessionCookie } from '$lib/server/auth';
-import { assertReadyToServe } from '$lib/server/config';
+import { assertReadyToServe, config } from '$lib/server/config';
 import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
 import { closeDb } from '$lib/server/db';
 import { stopJobs } from '$lib/server/jobs';
 import { publicApiLimit } from '$lib/server/api-limit';
 import { DEFAULT_CACHE_CONTROL, SECURITY_HEADERS } from '$lib/server/security-headers.js';
+import { assertClaimSecret } from '$lib/server/secrets';
 
 export const init: ServerInit = () => {
 	assertReadyToServe();
@@ -14,6 +15,7 @@ export const init: ServerInit = () => {
 	process.once('sveltekit:shutdown' as 'exit', async () => {
 		await Promise.allSettled([stopJobs(), closeDb()]);
 	});
+	assertClaimSecret(config);
 };
 
 export const handle: Handle = async ({ event, resolve }) => {

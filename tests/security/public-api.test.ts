@@ -1,28 +1,30 @@
 // The public calendar endpoint cannot be used to load the server: calendars come from a bounded
 // cache keyed by the plan's inputs, and every /api/ route has a per-address limit (ASVS 2.4.1).
 import { describe, expect, it } from 'vitest';
-import { climates, cultivars, defaultFeeding } from '$lib/care';
+import { climates, cultivars } from '$lib/care';
+import { builtInSnapshot } from '$lib/server/catalogue/snapshot';
 import { byteCache } from '../../src/lib/server/byte-cache';
 import { tokenBucketLimiter } from '../../src/lib/server/api-limit';
 import { calendarCache, previewCalendar } from '../../src/lib/server/plan-preview';
 import { get } from './helpers';
 
+const catalogue = builtInSnapshot();
 const request = { cultivar: cultivars[0].slug, plantedOn: '2026-03-01', ageAtPlantingWeeks: 12, climate: climates[0].slug };
 
 describe('ASVS 2.4.1 calendars are written once per set of inputs', () => {
 	it('the same inputs are served from the cache, byte for byte', () => {
 		const { hits, misses } = { ...calendarCache.stats };
-		const first = previewCalendar(request, 'http://bunchline.test', defaultFeeding);
-		const again = previewCalendar({ ...request }, 'http://bunchline.test', defaultFeeding);
+		const first = previewCalendar(request, catalogue, 'http://bunchline.test');
+		const again = previewCalendar({ ...request }, catalogue, 'http://bunchline.test');
 		expect(again.ics).toBe(first.ics);
 		expect(calendarCache.stats.misses - misses).toBeLessThanOrEqual(1);
 		expect(calendarCache.stats.hits - hits).toBeGreaterThanOrEqual(1);
 	});
 	it('any input that changes the plan gives another calendar', () => {
-		const a = previewCalendar(request, 'http://bunchline.test', defaultFeeding).ics;
-		expect(previewCalendar({ ...request, ageAtPlantingWeeks: 20 }, 'http://bunchline.test', defaultFeeding).ics).not.toBe(a);
-		expect(previewCalendar({ ...request, units: 'imperial' }, 'http://bunchline.test', defaultFeeding).ics).not.toBe(a);
-		expect(previewCalendar(request, 'http://bunchline.test', { ...defaultFeeding, npk: [20, 5, 10] }).ics).not.toBe(a);
+		const a = previewCalendar(request, catalogue, 'http://bunchline.test').ics;
+		expect(previewCalendar({ ...request, ageAtPlantingWeeks: 20 }, catalogue, 'http://bunchline.test').ics).not.toBe(a);
+		expect(previewCalendar({ ...request, units: 'imperial' }, catalogue, 'http://bunchline.test').ics).not.toBe(a);
+		expect(previewCalendar(request, builtInSnapshot({ npk: [20, 5, 10] }), 'http://bunchline.test').ics).not.toBe(a);
 	});
 	it('the cache holds at most its byte cap, dropping the least recently used', () => {
 		const cache = byteCache(10_000);

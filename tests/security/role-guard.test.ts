@@ -10,6 +10,22 @@ import { baseUrl } from '../helpers/browser';
 const STAFF_ONLY = ['/nursery/stall'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
 const SIGNED_IN = ['/plants', '/settings/account'];
+/** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
+const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
+	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/stock', method: 'POST', roles: 'owner' },
+	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
+	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
+	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' }
+];
+const apiCall = (method: string, path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method,
+		redirect: 'manual',
+		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+		...(method === 'GET' ? {} : { body: '{}' })
+	});
 
 async function sessionCookie(email: string): Promise<string> {
 	const login = await fetch(`${baseUrl()}/login?/signin`, {
@@ -43,7 +59,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -62,7 +78,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path)]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -101,6 +117,31 @@ describe('a gardener', () => {
 		});
 		expect(res.status).toBe(403);
 		expect((await get('/nursery', gardener)).status).toBe(403);
+	});
+});
+
+describe('the JSON API', () => {
+	for (const { path, method, roles } of API) {
+		it(`${method} ${path} signed out is 401 in the API's error shape`, async () => {
+			const res = await apiCall(method, path);
+			expect(res.status).toBe(401);
+			expect(((await res.json()) as { error: { message: string } }).error.message).toBeTruthy();
+		});
+		if (roles !== 'signed-in') {
+			it(`${method} ${path} is 403 for a gardener`, async () => expect((await apiCall(method, path, gardener)).status).toBe(403));
+		}
+		if (roles === 'owner') {
+			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
+		}
+	}
+	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example', cookie: staff },
+			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
+		});
+		expect(res.status).toBe(403);
 	});
 });
 

@@ -10,7 +10,13 @@ export const config = {
 	/** Production and any https site: Secure cookies with the __Host- prefix. */
 	secureCookies: env.mode === 'production' || env.publicUrl.startsWith('https:'),
 	/** The captured mail is only readable outside production. */
-	devMailbox: env.mode !== 'production'
+	devMailbox: env.mode !== 'production',
+	/**
+	 * Key of the claim codes printed on care cards (HMAC of the plant's id and claim version), at
+	 * least 32 characters. Required in production; demo and tests generate one and keep it in the
+	 * database (src/lib/server/secrets.ts), so every process on that database agrees.
+	 */
+	claimSecret: env.claimSecret
 };
 
 /** In production, e-mailed links and the origin check need the public URL. */

@@ -65,6 +65,8 @@ const schema = z.object({
 	SMTP_PORT: port('SMTP_PORT').optional(),
 	MAIL_FROM: z.string().trim().min(3).optional(),
 	MAIL_DIR: z.string().trim().min(1).optional(),
+	/** Its length and presence in production are checked by src/lib/server/secrets.ts, which says how to make one. */
+	CLAIM_SECRET: z.string().optional(),
 	API_REQUESTS_PER_MINUTE: z
 		.string()
 		.trim()
@@ -114,7 +116,8 @@ export function parseEnvironment(env = process.env, options = {}) {
 			from: e.MAIL_FROM ?? DEFAULTS.mailFrom
 		},
 		mailDir: e.MAIL_DIR ?? DEFAULTS.mailDir,
-		apiRequestsPerMinute: e.API_REQUESTS_PER_MINUTE ?? DEFAULTS.apiRequestsPerMinute
+		apiRequestsPerMinute: e.API_REQUESTS_PER_MINUTE ?? DEFAULTS.apiRequestsPerMinute,
+		claimSecret: e.CLAIM_SECRET ?? null
 	};
 }
 

@@ -4,7 +4,7 @@ import { ROLES } from '../../../schema/auth';
 export const roleEnum = pgEnum('role', ROLES);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
 
-const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
+import { createdAt } from './columns';
 
 export const users = pgTable(
 	'users',
