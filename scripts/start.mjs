@@ -1,4 +1,4 @@
-// npm start: PostgreSQL, migrations, demo seed, fake mail service, app and reminder worker.
+// npm start: PostgreSQL, migrations, demo seed, fake mail service, app and job worker (account e-mail; reminders later).
 // npm run dev: the same with vite's hot reload. Ctrl-C stops everything started here, and only that.
 import { spawn, spawnSync } from 'node:child_process';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo.mjs';
@@ -91,7 +91,7 @@ function launch(name, args) {
 
 launch('mail service', ['scripts/mail-server.mjs']);
 // node --import tsx keeps the worker one process, so the stop signal reaches it directly.
-launch('reminder worker', ['--import', 'tsx', 'scripts/worker.ts']);
+launch('job worker', ['--import', 'tsx', 'scripts/worker.ts']);
 launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['scripts/serve.mjs']);
 
 setTimeout(() => {
