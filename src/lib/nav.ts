@@ -11,11 +11,18 @@ const publicLinks: NavLink[] = [
 ];
 
 const byRole: Record<Role, NavLink[]> = {
-	gardener: [{ href: '/plants', label: 'My plants' }],
-	staff: [{ href: '/nursery/stall', label: 'Stall' }],
+	gardener: [
+		{ href: '/plants', label: 'My plants' },
+		{ href: '/settings', label: 'Settings' }
+	],
+	staff: [
+		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' }
+	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' }
 	]
 };

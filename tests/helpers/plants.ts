@@ -1,5 +1,5 @@
 /** Test fixtures: gardeners and claimed plants written straight into the test database. */
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { climateProfiles, cultivars, plants, users } from '../../src/lib/server/db/schema';
 import { regeneratePlan } from '../../src/lib/server/plans/regenerate';
@@ -45,4 +45,21 @@ export async function insertPlant(f: PlantFixture) {
 		await regeneratePlan(tx, plant!.id, { kind: 'created' });
 		return plant!;
 	});
+}
+
+/**
+ * Moves one stored step by `days` the way a regeneration records a move (new dates, sequence
+ * raised, change time, the plant's plan time), at a fixed time a test can assert on.
+ */
+export async function moveStep(stepId: number, days: number, at: Date): Promise<void> {
+	await db.execute(sql`
+		update plan_steps set earliest = earliest + ${days}::int, likely = likely + ${days}::int, latest = latest + ${days}::int,
+			sequence = sequence + 1, changed_at = ${at.toISOString()} where id = ${stepId}`);
+	await db.execute(sql`update plants set plan_changed_at = ${at.toISOString()} where id = (select plant_id from plan_steps where id = ${stepId})`);
+}
+
+/** Pins every step's and the plan's change time, so tests can assert DTSTAMP and Last-Modified. */
+export async function pinChangeTime(plantId: number, at: Date): Promise<void> {
+	await db.execute(sql`update plan_steps set changed_at = ${at.toISOString()} where plant_id = ${plantId}`);
+	await db.execute(sql`update plants set plan_changed_at = ${at.toISOString()} where id = ${plantId}`);
 }

@@ -7,9 +7,9 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
 
-const STAFF_ONLY = ['/nursery/stall'];
+const STAFF_ONLY = ['/nursery/stall', '/nursery/plants'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants', '/settings/account'];
+const SIGNED_IN = ['/plants', '/settings', '/settings/account'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
 	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
@@ -17,7 +17,11 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
-	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' }
+	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
+	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' }
 ];
 const apiCall = (method: string, path: string, cookie?: string) =>
 	fetch(`${baseUrl()}${path}`, {
@@ -91,6 +95,11 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
+	it('POST to a settings action redirects to sign-in', async () => {
+		const res = await post('/settings?/createFeed');
+		expect(res.status).toBe(303);
+		expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+	});
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -134,6 +143,14 @@ describe('the JSON API', () => {
 			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
 		}
 	}
+	it('GET /api/v1/plants for a gardener is 200 with only plants they claimed', async () => {
+		const res = await apiCall('GET', '/api/v1/plants?claimed=no', gardener);
+		expect(res.status).toBe(200);
+		expect(((await res.json()) as { total: number }).total).toBe(0);
+	});
+	for (const path of ['/api/v1/plants', '/api/v1/plants.csv']) {
+		it(`GET ${path} is 200 for staff`, async () => expect((await apiCall('GET', path, staff)).status).toBe(200));
+	}
 	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
 		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
 			method: 'POST',
@@ -142,6 +159,23 @@ describe('the JSON API', () => {
 			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
 		});
 		expect(res.status).toBe(403);
+	});
+});
+
+describe('feeds of another account', () => {
+	it("a gardener cannot revoke another account's feed (404), and their own list is theirs alone", async () => {
+		const made = await fetch(`${baseUrl()}/api/v1/feeds`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', cookie: staff },
+			body: '{}'
+		});
+		expect(made.status).toBe(201);
+		const { id, url } = (await made.json()) as { id: number; url: string };
+		const res = await fetch(`${baseUrl()}/api/v1/feeds/${id}`, { method: 'DELETE', headers: { cookie: gardener } });
+		expect(res.status).toBe(404);
+		const mine = (await (await get('/api/v1/feeds', gardener)).json()) as { feeds: { id: number }[] };
+		expect(mine.feeds.map((f) => f.id)).not.toContain(id);
+		expect((await fetch(url)).status).toBe(200);
 	});
 });
 
@@ -156,7 +190,7 @@ describe('staff', () => {
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });

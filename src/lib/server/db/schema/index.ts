@@ -7,3 +7,4 @@ export * from './plans';
 export * from './secrets';
 export * from './uploads';
 export * from './milestones';
+export * from './delivery';
