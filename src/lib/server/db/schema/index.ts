@@ -4,3 +4,4 @@ export * from './catalogue';
 export * from './stock';
 export * from './plants';
 export * from './plans';
+export * from './board';
