@@ -2,12 +2,14 @@ import { text, type Handle, type ServerInit } from '@sveltejs/kit';
 import { validateSessionCookie } from '$lib/server/auth';
 import { config } from '$lib/server/config';
 import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
+import { assertClaimSecret } from '$lib/server/secrets';
 
 /** In production, e-mailed links and the origin check need the public URL: refuse to start without it. */
 export const init: ServerInit = () => {
 	if (config.mode === 'production' && !process.env.ORIGIN && !process.env.PUBLIC_URL) {
 		throw new Error('Set ORIGIN to the public URL of this site (for example ORIGIN=https://plants.example.org)');
 	}
+	assertClaimSecret(config);
 };
 
 export const handle: Handle = async ({ event, resolve }) => {

@@ -15,7 +15,8 @@ const publicLinks: NavLink[] = [
 const byRole: Record<Role, NavLink[]> = {
 	gardener: [
 		{ href: '/plants', label: 'My plants' },
-		{ href: '/ask', label: 'Ask the nursery' }
+		{ href: '/ask', label: 'Ask the nursery' },
+		{ href: '/settings', label: 'Settings' }
 	],
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },

@@ -20,9 +20,27 @@ const GARDENER_ONLY = ['/ask'];
 /** Pages of one gardener's own things: 404 to everyone but their owner and staff, signed out too. */
 const ASKER_ONLY = ['/questions/[id]'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants'];
-/** JSON endpoints for anyone signed in: 401 when signed out. */
-const SIGNED_IN_API = ['/api/preview'];
+const SIGNED_IN = ['/plants', '/settings'];
+/** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
+const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
+	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/stock', method: 'POST', roles: 'owner' },
+	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
+	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
+	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
+	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' },
+	{ path: '/api/preview', method: 'POST', roles: 'signed-in' }
+];
+const apiCall = (method: string, path: string, cookie?: string) =>
+	fetch(`${baseUrl()}${path}`, {
+		method,
+		redirect: 'manual',
+		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
+		...(method === 'GET' ? {} : { body: '{}' })
+	});
 /** The draft guide and the private question the "[id]"s below stand for, written in beforeAll. */
 let guideId = 0;
 let questionId = 0;
@@ -48,7 +66,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[number]', '1');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[number]', '1').replace(/^(\/api\/v1\/[\w-]+\/)\[id\]/, '$11');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -75,7 +93,7 @@ afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...SIGNED_IN_API, ...GARDENER_ONLY, ...ASKER_ONLY, SIGN_OUT]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...GARDENER_ONLY, ...ASKER_ONLY, SIGN_OUT, ...API.map((a) => a.path)]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
@@ -89,12 +107,11 @@ describe('signed out', () => {
 			expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
 		});
 	}
-	for (const path of SIGNED_IN_API) {
-		it(`POST ${path} is 401`, async () => {
-			const res = await fetch(`${baseUrl()}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', origin: baseUrl() }, body: '{"markdown":"x"}' });
-			expect(res.status).toBe(401);
-		});
-	}
+	it('POST to a settings action redirects to sign-in', async () => {
+		const res = await post('/settings?/createFeed');
+		expect(res.status).toBe(303);
+		expect(res.headers.get('location')).toMatch(/^\/login\?next=/);
+	});
 	it('POST to a team action redirects to sign-in and changes nothing', async () => {
 		const res = await post('/nursery/team?/invite');
 		expect(res.status).toBe(303);
@@ -131,6 +148,48 @@ describe('a gardener', () => {
 	});
 });
 
+describe('the JSON API', () => {
+	for (const { path, method, roles } of API) {
+		it(`${method} ${path} signed out is 401 in the API's error shape`, async () => {
+			const res = await apiCall(method, path);
+			expect(res.status).toBe(401);
+			expect(((await res.json()) as { error: { message: string } }).error.message).toBeTruthy();
+		});
+		if (roles !== 'signed-in') {
+			it(`${method} ${path} is 403 for a gardener`, async () => expect((await apiCall(method, path, gardener)).status).toBe(403));
+		}
+		if (roles === 'owner') {
+			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
+		}
+	}
+	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
+		const res = await fetch(`${baseUrl()}/api/v1/sales`, {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', origin: 'http://evil.example', cookie: staff },
+			body: new URLSearchParams({ batchId: '1', quantity: '1', pricePerPlant: '1', clientId: crypto.randomUUID() })
+		});
+		expect(res.status).toBe(403);
+	});
+});
+
+describe('feeds of another account', () => {
+	it("a gardener cannot revoke another account's feed (404), and their own list is theirs alone", async () => {
+		const made = await fetch(`${baseUrl()}/api/v1/feeds`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', cookie: staff },
+			body: '{}'
+		});
+		expect(made.status).toBe(201);
+		const { id, url } = (await made.json()) as { id: number; url: string };
+		const res = await fetch(`${baseUrl()}/api/v1/feeds/${id}`, { method: 'DELETE', headers: { cookie: gardener } });
+		expect(res.status).toBe(404);
+		const mine = (await (await get('/api/v1/feeds', gardener)).json()) as { feeds: { id: number }[] };
+		expect(mine.feeds.map((f) => f.id)).not.toContain(id);
+		expect((await fetch(url)).status).toBe(200);
+	});
+});
+
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
 	for (const path of GARDENER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
@@ -145,7 +204,7 @@ describe('staff', () => {
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail']) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });

@@ -5,11 +5,15 @@
 
 export type IsoDate = string;
 
-/** Where a value came from: a published source, the trade's rule of thumb, or recall. */
+/**
+ * Where a value came from: a published source, the trade's rule of thumb, recall, or the nursery's
+ * own value (set by the owner in the catalogue, from their own records; kept across engine updates).
+ */
 export type Provenance =
 	| { kind: 'published'; citation: string }
 	| { kind: 'common-practice' } // `common practice, no source`
-	| { kind: 'from-memory'; note?: string };
+	| { kind: 'from-memory'; note?: string }
+	| { kind: 'nursery'; note?: string };
 
 export interface Sourced<T> {
 	value: T;

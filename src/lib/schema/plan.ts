@@ -4,7 +4,7 @@
  * string (flat, so a planner URL can be shared, bookmarked and subscribed to).
  */
 import { z } from 'zod';
-import { findClimate, findCultivar, model, parseIsoDate, thermalClockFor, type IsoDate, type Units } from '$lib/care';
+import { model, parseIsoDate, thermalClockFor, type IsoDate, type Units } from '$lib/care';
 
 export const AGE_MAX_WEEKS = 104;
 /** Monthly means outside this range are typing slips, not climates a banana could live in. */
@@ -36,17 +36,25 @@ export const isoDateField = z
 		return year >= YEAR_MIN && year <= YEAR_MAX;
 	}, `Enter a year between ${YEAR_MIN} and ${YEAR_MAX}`);
 
-export const cultivarField = z
-	.string({ error: 'Choose a cultivar' })
-	.trim()
-	.min(1, { error: 'Choose a cultivar', abort: true })
-	.refine((slug) => findCultivar(slug) !== undefined, 'Unknown cultivar: choose one listed by GET /api/v1/cultivars');
+/**
+ * Catalogue slugs: lowercase words joined by hyphens. Whether one exists is known only to the
+ * catalogue in the database, so the plan service checks that (an unknown slug is a 400 there).
+ */
+export const SLUG_MAX = 80;
+export const SLUG_PATTERN = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
 
-export const climateSlugField = z
-	.string({ error: 'Choose a climate' })
-	.trim()
-	.min(1, { error: 'Choose a climate', abort: true })
-	.refine((slug) => findClimate(slug) !== undefined, 'Unknown climate: choose one listed by GET /api/v1/climates, or give 12 monthly means');
+function slugField(choose: string, unknown: string) {
+	return z
+		.string({ error: choose })
+		.trim()
+		.min(1, { error: choose, abort: true })
+		.max(SLUG_MAX, { error: unknown, abort: true })
+		.regex(SLUG_PATTERN, unknown);
+}
+
+export const cultivarField = slugField('Choose a cultivar', 'Unknown cultivar: choose one listed by GET /api/v1/cultivars');
+
+export const climateSlugField = slugField('Choose a climate', 'Unknown climate: choose one listed by GET /api/v1/climates, or give 12 monthly means');
 
 const ageMessage = `Enter a whole number of weeks from 0 to ${AGE_MAX_WEEKS}`;
 export const ageField = z

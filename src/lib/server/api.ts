@@ -3,7 +3,7 @@
  * { "error": { "message": string, "issues": [{ "path": (string|number)[], "message": string }] } }.
  * An empty path means the request as a whole (e.g. a body that is not JSON).
  */
-import { json, type RequestHandler } from '@sveltejs/kit';
+import { isHttpError, json, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { UserFacingError } from './errors';
 
@@ -57,7 +57,7 @@ export async function readJson(request: Request): Promise<unknown> {
 }
 
 /**
- * Wraps a handler so refusals become 400 JSON and never a 500. Anything else is a bug and is
+ * Wraps a handler so refusals become JSON in the one shape (400, or the status the refusal names) and never a 500. Anything else is a bug and is
  * left to SvelteKit's error handling, which logs it.
  */
 export function apiRoute(handler: RequestHandler): RequestHandler {
@@ -67,6 +67,8 @@ export function apiRoute(handler: RequestHandler): RequestHandler {
 		} catch (e) {
 			if (e instanceof ApiInputError) return apiError(e.message, e.issues);
 			if (e instanceof UserFacingError) return apiError(e.message, [{ path: e.field ? e.field.split('.') : [], message: e.message }], e.status);
+			// The guard's 401 and 403 in the same shape as every other refusal.
+			if (isHttpError(e)) return apiError(e.body.message, [], e.status);
 			throw e;
 		}
 	};

@@ -24,6 +24,12 @@ export const config = {
 	},
 	/** Folder the local fake mail service writes to; the developer mailbox reads it. */
 	mailDir: env.MAIL_DIR ?? 'dev-mail',
+	/**
+	 * Key of the claim codes printed on care cards (HMAC of the plant's id and claim version), at
+	 * least 32 characters. Required in production; demo and tests generate one and keep it in the
+	 * database (src/lib/server/secrets.ts), so every process on that database agrees.
+	 */
+	claimSecret: env.CLAIM_SECRET ?? null,
 	get secureCookies() {
 		return this.mode === 'production' || this.publicUrl.startsWith('https:');
 	},

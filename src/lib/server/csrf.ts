@@ -1,15 +1,16 @@
 /**
  * SvelteKit's own origin check also covers /api/v1, where a cookie-less client sending
  * a non-JSON body must get the API's 400, not a 403. So the check lives here instead:
- * the same rule as the framework's, minus the public API, which never reads the session.
+ * the same rule as the framework's, minus the public API routes that never read the session.
+ * Every API route that reads the session cookie (stock, sales, plants) keeps the check.
  */
 const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
-const COOKIELESS_PREFIXES = ['/api/v1/'];
+const COOKIELESS_ROUTES = new Set(['/api/v1/plan-preview', '/api/v1/plan-preview.ics', '/api/v1/cultivars', '/api/v1/climates']);
 
 export function isForbiddenCrossSiteForm(request: Request, url: URL): boolean {
 	if (!UNSAFE.has(request.method)) return false;
-	if (COOKIELESS_PREFIXES.some((p) => url.pathname.startsWith(p))) return false;
+	if (COOKIELESS_ROUTES.has(url.pathname)) return false;
 	const type = (request.headers.get('content-type') ?? '').split(';', 1)[0].trim().toLowerCase();
 	if (!FORM_TYPES.includes(type)) return false;
 	return request.headers.get('origin') !== url.origin;

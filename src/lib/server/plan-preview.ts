@@ -1,26 +1,15 @@
 /**
  * Plan preview: a parsed request (see $lib/schema/plan) → the engine's PlanInput → a plan,
- * fed with the nursery's fertilizer and local rules (the routes read them from the settings;
- * without them, the engine's `defaultFeeding`). Nothing is stored: previews are for anyone.
+ * with the cultivar, climate and the nursery's fertilizer and local rules taken from a catalogue
+ * snapshot (`catalogueService.snapshot()`). Nothing is stored: previews are for anyone.
  */
-import {
-	climates,
-	computePlan,
-	cultivars,
-	defaultFeeding,
-	findClimate,
-	findCultivar,
-	referenceClimateSlug,
-	type Cultivar,
-	type FeedingSettings,
-	type Plan,
-	type PlanInput
-} from '$lib/care';
+import { computePlan, type Cultivar, type Plan, type PlanInput } from '$lib/care';
 import { CUSTOM_CLIMATE, planQuerySchema, planQueryString, queryValues, splitMeanValues, type PlanRequest, type QueryValues } from '$lib/schema/plan';
 import { fieldErrors, type FieldErrors } from '$lib/schema/form';
 import { formatDay } from '$lib/plan-text';
 import { planCalendar, type CalendarFile } from './calendar';
 import { UserFacingError } from './errors';
+import { defaultClimateSlug, defaultCultivarSlug, type CatalogueSnapshot } from './catalogue/snapshot';
 
 export interface PlanPreview {
 	request: PlanRequest;
@@ -30,14 +19,18 @@ export interface PlanPreview {
 	plan: Plan;
 }
 
-export function toPlanInput(request: PlanRequest, feeding: FeedingSettings = defaultFeeding): PlanInput {
-	const cultivar = findCultivar(request.cultivar);
-	if (!cultivar) throw new UserFacingError('cultivar', 'Unknown cultivar');
+/**
+ * Retired cultivars are still found: a calendar subscribed before the nursery stopped selling one
+ * keeps working. The schema checks only the shape of a slug; whether it exists is known here.
+ */
+export function toPlanInput(request: PlanRequest, catalogue: CatalogueSnapshot): PlanInput {
+	const cultivar = catalogue.cultivar(request.cultivar)?.cultivar;
+	if (!cultivar) throw new UserFacingError('cultivar', 'Unknown cultivar: choose one listed by GET /api/v1/cultivars');
 	let monthlyMeanC: number[];
 	if (typeof request.climate === 'string') {
-		const profile = findClimate(request.climate);
-		if (!profile) throw new UserFacingError('climate', 'Unknown climate');
-		monthlyMeanC = profile.monthlyMeanC;
+		const profile = catalogue.climate(request.climate);
+		if (!profile) throw new UserFacingError('climate', 'Unknown climate: choose one listed by GET /api/v1/climates, or give 12 monthly means');
+		monthlyMeanC = profile.climate.monthlyMeanC;
 	} else monthlyMeanC = request.climate.monthlyMeanC;
 	return {
 		cultivar,
@@ -45,14 +38,14 @@ export function toPlanInput(request: PlanRequest, feeding: FeedingSettings = def
 		ageAtPlantingWeeks: request.ageAtPlantingWeeks,
 		climate: { monthlyMeanC },
 		units: request.units ?? 'metric',
-		feeding,
+		feeding: catalogue.feeding,
 		...(request.observed ? { observed: request.observed } : {})
 	};
 }
 
-export function previewPlan(request: PlanRequest, feeding?: FeedingSettings): PlanPreview {
-	const input = toPlanInput(request, feeding);
-	const climateName = typeof request.climate === 'string' ? (findClimate(request.climate)?.name ?? request.climate) : 'your monthly means';
+export function previewPlan(request: PlanRequest, catalogue: CatalogueSnapshot): PlanPreview {
+	const input = toPlanInput(request, catalogue);
+	const climateName = typeof request.climate === 'string' ? (catalogue.climate(request.climate)?.climate.name ?? request.climate) : 'your monthly means';
 	return { request, cultivar: input.cultivar, climateName, plan: computePlan(input) };
 }
 
@@ -60,8 +53,8 @@ export function previewPlan(request: PlanRequest, feeding?: FeedingSettings): Pl
  * The preview as a calendar. Its identity is the plant (cultivar and planting day), not the
  * climate or logged milestones, so refining those later updates the same events.
  */
-export function previewCalendar(request: PlanRequest, origin?: string, feeding?: FeedingSettings): CalendarFile {
-	const { cultivar, plan } = previewPlan(request, feeding);
+export function previewCalendar(request: PlanRequest, catalogue: CatalogueSnapshot, origin?: string): CalendarFile {
+	const { cultivar, plan } = previewPlan(request, catalogue);
 	const ics = planCalendar(plan, {
 		identity: `preview|${request.cultivar}|${request.plantedOn}`,
 		name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
@@ -76,12 +69,16 @@ export function todayIso(now: Date = new Date(), timeZone = 'UTC'): string {
 	return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
 }
 
-/** What the planner shows before anyone has chosen: a plant of the first cultivar, bought today. */
-export function exampleRequest(today: string): PlanRequest {
-	return { cultivar: cultivars[0].slug, plantedOn: today, ageAtPlantingWeeks: 12, climate: referenceClimateSlug, units: 'metric' };
+/** What the planner shows before anyone has chosen: a plant of the reference cultivar, bought today, in the nursery's climate and units. */
+export function exampleRequest(today: string, catalogue: CatalogueSnapshot): PlanRequest {
+	return {
+		cultivar: defaultCultivarSlug(catalogue) ?? '',
+		plantedOn: today,
+		ageAtPlantingWeeks: 12,
+		climate: defaultClimateSlug(catalogue),
+		units: catalogue.settings.units
+	};
 }
-
-export const catalogue = { cultivars, climates };
 
 /** What the planner form shows in its inputs: always strings, always twelve months. */
 export interface PlannerValues {
@@ -110,14 +107,15 @@ export interface PlannerView {
 		query: string;
 	};
 	cultivarOptions: { slug: string; name: string }[];
-	climateOptions: { slug: string; name: string }[];
+	/** `nurserys`: the nursery's own profile, listed first. */
+	climateOptions: { slug: string; name: string; nurserys: boolean }[];
 }
 
-function formValues(raw: QueryValues): PlannerValues {
+function formValues(raw: QueryValues, catalogue: CatalogueSnapshot): PlannerValues {
 	const means = splitMeanValues(raw.monthlyMeanC ?? []).map((v) => v.trim());
 	const climate = raw.climate ?? (means.length > 0 ? CUSTOM_CLIMATE : '');
 	// Switching to "my own means" starts from the chosen profile rather than twelve blanks.
-	const base = findClimate(climate)?.monthlyMeanC.map(String) ?? [];
+	const base = catalogue.climate(climate)?.climate.monthlyMeanC.map(String) ?? [];
 	return {
 		cultivar: raw.cultivar ?? '',
 		plantedOn: raw.plantedOn ?? '',
@@ -130,21 +128,38 @@ function formValues(raw: QueryValues): PlannerValues {
 	};
 }
 
-/** The year planner page: the query string is the form, so every plan has a shareable URL. */
-export function plannerView(params: URLSearchParams, today = todayIso(), feeding?: FeedingSettings): PlannerView {
+/** Offered cultivars; a retired one only when a shared link asks for it, so the form shows what the plan is for. */
+function cultivarOptions(catalogue: CatalogueSnapshot, asked: string | undefined) {
+	const retired = asked ? catalogue.cultivar(asked.trim()) : undefined;
+	const options = catalogue.offeredCultivars.map(({ cultivar: { slug, name } }) => ({ slug, name }));
+	if (retired?.retired) options.push({ slug: retired.cultivar.slug, name: `${retired.cultivar.name} (no longer sold)` });
+	return options;
+}
+
+/**
+ * The year planner page: the query string is the form, so every plan has a shareable URL.
+ * Retired cultivars are not offered, but a shared link to one still shows its plan.
+ */
+export function plannerView(params: URLSearchParams, catalogue: CatalogueSnapshot, today = todayIso(new Date(), catalogue.settings.timeZone)): PlannerView {
 	const asked = queryValues(params);
 	const example = Object.keys(asked).length === 0;
-	const raw = example ? queryValues(new URLSearchParams(planQueryString(exampleRequest(today)))) : asked;
+	const raw = example ? queryValues(new URLSearchParams(planQueryString(exampleRequest(today, catalogue)))) : asked;
 	const parsed = planQuerySchema.safeParse(raw);
 	const base = {
 		today,
-		values: formValues(raw),
+		values: formValues(raw, catalogue),
 		example,
-		cultivarOptions: cultivars.map(({ slug, name }) => ({ slug, name })),
-		climateOptions: climates.map(({ slug, name }) => ({ slug, name }))
+		cultivarOptions: cultivarOptions(catalogue, raw.cultivar),
+		climateOptions: catalogue.climates.map(({ climate: { slug, name }, nurserys }) => ({ slug, name, nurserys }))
 	};
 	if (!parsed.success) return { ...base, errors: fieldErrors(parsed.error), result: null };
-	const preview = previewPlan(parsed.data, feeding);
+	let preview: PlanPreview;
+	try {
+		preview = previewPlan(parsed.data, catalogue);
+	} catch (e) {
+		if (e instanceof UserFacingError) return { ...base, errors: { [e.field]: e.message }, result: null };
+		throw e;
+	}
 	return {
 		...base,
 		errors: {},

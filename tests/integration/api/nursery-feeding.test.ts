@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { db } from '../../../src/lib/server/db';
 import { nurserySettings } from '../../../src/lib/server/db/schema';
+import { bumpCatalogueVersion } from '../../../src/lib/server/catalogue/version';
 import { POST } from '../../../src/routes/api/v1/plan-preview/+server';
 import { postJson, validBody } from './helpers';
 
@@ -19,9 +20,11 @@ beforeAll(async () => {
 		// Several Florida counties ban N and P fertilizer June 1 to September 30 (common practice, no source).
 		restrictedMonths: [6, 7, 8, 9]
 	});
+	await bumpCatalogueVersion(db);
 });
 afterAll(async () => {
 	await db.delete(nurserySettings).where(eq(nurserySettings.id, 1));
+	await bumpCatalogueVersion(db);
 });
 
 interface StepJson {

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { climates, cultivars } from '../../../src/lib/care';
 import { catalogueService } from '../../../src/lib/server/catalogue/service';
 import { syncBuiltInCatalogue } from '../../../src/lib/server/catalogue/sync';
+import { bumpCatalogueVersion } from '../../../src/lib/server/catalogue/version';
 import { db } from '../../../src/lib/server/db';
 import { cultivars as cultivarTable } from '../../../src/lib/server/db/schema';
 
@@ -27,5 +28,6 @@ describe('built-in catalogue in the database', () => {
 		expect(after.leavesToShooting).toEqual(own);
 		expect(after.bunchMassKg).toEqual(cultivars.find((c) => c.slug === 'williams')!.bunchMassKg);
 		await db.update(cultivarTable).set({ parameters: row.parameters }).where(eq(cultivarTable.id, row.id));
+		await bumpCatalogueVersion(db);
 	});
 });

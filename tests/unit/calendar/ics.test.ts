@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { climates, computePlan, cultivars, defaultFeeding, formatIsoDate, parseIsoDate, type Plan } from '$lib/care';
 import { planCalendar } from '$lib/server/calendar';
 import { previewCalendar } from '$lib/server/plan-preview';
+import { builtInSnapshot } from '$lib/server/catalogue/snapshot';
 
 function planFor(cultivarIndex: number, climateIndex: number, plantedOn = '2026-03-15'): Plan {
 	return computePlan({
@@ -104,10 +105,11 @@ describe('stable UIDs', () => {
 });
 
 describe('preview calendar for every cultivar and climate', () => {
+	const catalogue = builtInSnapshot();
 	cultivars.forEach((cultivar, ci) => {
 		it(`${cultivar.slug}: parses in every climate, one event per step`, () => {
 			climates.forEach((climate, li) => {
-				const file = previewCalendar({ cultivar: cultivar.slug, plantedOn: '2026-03-15', ageAtPlantingWeeks: 12, climate: climate.slug });
+				const file = previewCalendar({ cultivar: cultivar.slug, plantedOn: '2026-03-15', ageAtPlantingWeeks: 12, climate: climate.slug }, catalogue);
 				expect(file.filename).toMatch(/\.ics$/);
 				expect(parse(file.ics).events).toHaveLength(planFor(ci, li).steps.length);
 			});

@@ -23,4 +23,10 @@ describe('cross-site form check (OWASP CSRF Prevention Cheat Sheet: verify the O
 	it('leaves the cookie-less public API to answer bad bodies with its own 400', () => {
 		expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', null), url('/api/v1/plan-preview'))).toBe(false);
 	});
+	it('refuses a cross-site form post to an API route that reads the session cookie', () => {
+		for (const path of ['/api/v1/sales', '/api/v1/stock', '/api/v1/sales/1', '/api/v1/plan-preview/x']) {
+			expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', 'http://evil.example'), url(path)), path).toBe(true);
+		}
+		expect(isForbiddenCrossSiteForm(req('DELETE', 'text/plain', 'http://evil.example'), url('/api/v1/sales/1'))).toBe(true);
+	});
 });

@@ -1,21 +1,33 @@
-import { asc, eq, isNull } from 'drizzle-orm';
+import { asc, desc, eq, sql } from 'drizzle-orm';
 import { db } from '../db';
-import { climateProfiles, cultivars } from '../db/schema';
+import { climateProfiles, cultivars, nurserySettings } from '../db/schema';
+import { readCatalogueVersion } from './version';
+
+export type CultivarRow = typeof cultivars.$inferSelect;
+export type ClimateRow = typeof climateProfiles.$inferSelect;
+export type SettingsRow = typeof nurserySettings.$inferSelect;
+
+export interface CatalogueRows {
+	version: number;
+	cultivars: CultivarRow[];
+	climates: ClimateRow[];
+	settings: SettingsRow | undefined;
+}
 
 export const catalogueRepository = {
-	cultivars: (includeRetired = false) =>
-		db
-			.select()
-			.from(cultivars)
-			.where(includeRetired ? undefined : isNull(cultivars.retiredAt))
-			.orderBy(asc(cultivars.name)),
-	cultivarBySlug: async (slug: string) => (await db.select().from(cultivars).where(eq(cultivars.slug, slug)))[0],
-	cultivarById: async (id: number) => (await db.select().from(cultivars).where(eq(cultivars.id, id)))[0],
-	climates: () => db.select().from(climateProfiles).orderBy(asc(climateProfiles.builtIn), asc(climateProfiles.name)),
-	climateBySlug: async (slug: string) => (await db.select().from(climateProfiles).where(eq(climateProfiles.slug, slug)))[0],
-	climateById: async (id: number) => (await db.select().from(climateProfiles).where(eq(climateProfiles.id, id)))[0]
+	version: () => readCatalogueVersion(db),
+	/** Everything the catalogue cache holds, read in one snapshot so the version matches the rows. */
+	rows: (): Promise<CatalogueRows> =>
+		db.transaction(
+			async (tx) => ({
+				version: await readCatalogueVersion(tx),
+				cultivars: await tx.select().from(cultivars).orderBy(asc(cultivars.name)),
+				// The nursery's own profiles first (buyers mostly garden near the nursery), then by name.
+				climates: await tx.select().from(climateProfiles).orderBy(desc(sql`not ${climateProfiles.builtIn}`), asc(climateProfiles.name)),
+				settings: (await tx.select().from(nurserySettings).where(eq(nurserySettings.id, 1)))[0]
+			}),
+			{ isolationLevel: 'repeatable read', accessMode: 'read only' }
+		)
 };
 
 export type CatalogueRepository = typeof catalogueRepository;
-export type CultivarRow = typeof cultivars.$inferSelect;
-export type ClimateRow = typeof climateProfiles.$inferSelect;

@@ -1,55 +1,43 @@
 /**
- * The catalogue as the rest of the product sees it: cultivars and climate profiles from the
- * database, in the engine's shapes, with their row ids. Every plan reads its cultivar and
- * climate through here; the engine itself never reads the database.
+ * The one way the product reads the catalogue: cultivars, climate profiles and the nursery's
+ * feeding settings, from the database, in the engine's shapes. The planner, the public API, stored
+ * plans, the stall and the care cards all read through here; the engine itself never reads the
+ * database. The snapshot is cached in memory per catalogue version (see `versionedCache`).
  */
-import type { ClimateProfile, Cultivar } from '../../care';
-import { catalogueRepository, type CatalogueRepository, type ClimateRow, type CultivarRow } from './repository';
-import { rowToClimate, rowToCultivar } from './mapping';
+import { catalogueRepository, type CatalogueRepository } from './repository';
+import { buildSnapshot, versionedCache, type CatalogueSnapshot } from './snapshot';
 
-export interface StoredCultivar {
-	id: number;
-	cultivar: Cultivar;
-	usualPriceCents: number | null;
-	builtIn: boolean;
-	retired: boolean;
-}
+export type { CatalogueSnapshot, NurserySettings, StoredClimate, StoredCultivar } from './snapshot';
+export { toStoredClimate, toStoredCultivar } from './snapshot';
 
-export interface StoredClimate {
-	id: number;
-	climate: ClimateProfile;
-	/** The nursery's own profile (listed first to buyers, who mostly garden near the nursery). */
-	nurserys: boolean;
-}
-
-export const toStoredCultivar = (r: CultivarRow): StoredCultivar => ({
-	id: r.id,
-	cultivar: rowToCultivar(r),
-	usualPriceCents: r.usualPriceCents,
-	builtIn: r.builtIn,
-	retired: r.retiredAt !== null
-});
-
-export const toStoredClimate = (r: ClimateRow): StoredClimate => ({ id: r.id, climate: rowToClimate(r), nurserys: !r.builtIn });
-
-/** A lookup that maps the row it finds and passes "not found" on as undefined. */
-const mapped =
-	<K, R, T>(find: (key: K) => Promise<R | undefined>, map: (r: R) => T) =>
-	async (key: K): Promise<T | undefined> => {
-		const r = await find(key);
-		return r ? map(r) : undefined;
-	};
-
-export function createCatalogueService(repo: CatalogueRepository) {
+export function createCatalogueService(repo: Pick<CatalogueRepository, 'version' | 'rows'>) {
+	const cache = versionedCache(repo.version, async () => buildSnapshot(await repo.rows()));
+	const snapshot = (): Promise<CatalogueSnapshot> => cache.get();
 	return {
-		cultivars: async (includeRetired = false) => (await repo.cultivars(includeRetired)).map(toStoredCultivar),
-		cultivarBySlug: mapped(repo.cultivarBySlug, toStoredCultivar),
-		cultivarById: mapped(repo.cultivarById, toStoredCultivar),
+		/** Everything at once, from one cache check: use it when a request needs several parts. */
+		snapshot,
+		/** Offered cultivars by name; with `includeRetired`, the retired ones too (plants already sold keep theirs). */
+		cultivars: async (includeRetired = false) => {
+			const s = await snapshot();
+			return includeRetired ? s.cultivars : s.offeredCultivars;
+		},
+		/** Any cultivar, retired ones included: a plan of a plant already sold must still read it. */
+		cultivarBySlug: async (slug: string) => (await snapshot()).cultivar(slug),
+		cultivarById: async (id: number) => (await snapshot()).cultivarById(id),
 		/** The nursery's own profiles first, then the built-in ones, each by name. */
-		climates: async () => (await repo.climates()).map(toStoredClimate),
-		climateBySlug: mapped(repo.climateBySlug, toStoredClimate),
-		climateById: mapped(repo.climateById, toStoredClimate)
+		climates: async () => (await snapshot()).climates,
+		climateBySlug: async (slug: string) => (await snapshot()).climate(slug),
+		climateById: async (id: number) => (await snapshot()).climateById(id),
+		settings: async () => (await snapshot()).settings,
+		/** The fertilizer, scoop and local rules every plan is fed with. */
+		feedingSettings: async () => (await snapshot()).feeding,
+		/** What a plan needs of the settings: the feeding and the nursery's time zone (for "today"). */
+		planningContext: async () => {
+			const s = await snapshot();
+			return { feeding: s.feeding, timeZone: s.settings.timeZone };
+		}
 	};
 }
 
+export type CatalogueService = ReturnType<typeof createCatalogueService>;
 export const catalogueService = createCatalogueService(catalogueRepository);

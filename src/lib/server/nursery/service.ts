@@ -1,38 +1,32 @@
-import { defaultFeeding, findClimate, type FeedingSettings } from '../../care';
-import { nurseryRepository } from './repository';
+/**
+ * What pages show of the nursery settings. The settings are read through the catalogue service
+ * (one cached snapshot with the cultivars and climates), so every plan and page agree.
+ */
+import { catalogueService, type CatalogueService } from '../catalogue/service';
 
-type Settings = NonNullable<Awaited<ReturnType<typeof nurseryRepository.settings>>>;
-
-/** Shown before the owner has set the nursery up. */
-const UNNAMED = { name: 'Your nursery', town: 'your town', market: 'the market' };
-
-/** The fertilizer and local rules every plan is fed with; the scoop sizes are the engine's. */
-function feedingOf(s: Settings | undefined): FeedingSettings {
-	if (!s) return defaultFeeding;
+export function createNurseryService(catalogue: Pick<CatalogueService, 'snapshot' | 'planningContext' | 'feedingSettings'>) {
 	return {
-		...defaultFeeding,
-		npk: s.npk,
-		restrictedMonths: s.restrictedMonths,
-		...(s.nitrogenCapKgPer100m2 != null ? { nitrogenCapKgPer100m2: s.nitrogenCapKgPer100m2 } : {})
+		feedingSettings: catalogue.feedingSettings,
+		planningContext: catalogue.planningContext,
+		publicProfile: async () => {
+			const { name, town, market } = (await catalogue.snapshot()).settings;
+			return { name, town, market };
+		},
+		/** What the owner's dashboard shows of the settings, with the climate by name. */
+		async dashboard() {
+			const s = await catalogue.snapshot();
+			const { name, town, market, configured } = s.settings;
+			const feeding = configured
+				? {
+						fertilizer: s.settings.fertilizerName,
+						npk: s.settings.npk,
+						climate: s.climate(s.settings.defaultClimate)?.climate.name ?? s.settings.defaultClimate,
+						restrictedMonths: s.settings.restrictedMonths
+					}
+				: null;
+			return { profile: { name, town, market }, feeding };
+		}
 	};
 }
 
-const profileOf = (s: Settings | undefined) => (s ? { name: s.name, town: s.town, market: s.market } : UNNAMED);
-
-export const nurseryService = {
-	feedingSettings: async () => feedingOf(await nurseryRepository.settings()),
-	publicProfile: async () => profileOf(await nurseryRepository.settings()),
-	/** What the planner needs of the settings, from one read. */
-	async planningContext(): Promise<{ feeding: FeedingSettings; timeZone: string }> {
-		const s = await nurseryRepository.settings();
-		return { feeding: feedingOf(s), timeZone: s?.timeZone ?? 'UTC' };
-	},
-	/** What the owner's dashboard shows of the settings, from one read, with the climate by name. */
-	async dashboard() {
-		const s = await nurseryRepository.settings();
-		const feeding = s
-			? { fertilizer: s.fertilizerName, npk: s.npk, climate: findClimate(s.defaultClimate)?.name ?? s.defaultClimate, restrictedMonths: s.restrictedMonths }
-			: null;
-		return { profile: profileOf(s), feeding };
-	}
-};
+export const nurseryService = createNurseryService(catalogueService);

@@ -60,7 +60,8 @@ export const climateProfiles = pgTable(
 		source: jsonb('source').$type<Provenance>().notNull(),
 		builtIn: boolean('built_in').notNull().default(false),
 		createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
-		createdAt: createdAt()
+		createdAt: createdAt(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [uniqueIndex('climate_profiles_slug_key').on(t.slug)]
 );
@@ -86,3 +87,14 @@ export const waitlistEntries = pgTable(
 	]
 );
 
+
+/**
+ * One row: a counter raised in the same transaction as every write to cultivars, climate profiles
+ * or the nursery settings. Each app instance caches the catalogue in memory and re-reads it only
+ * when this number moved, so several instances stay correct with one tiny read per request.
+ */
+export const catalogueVersion = pgTable('catalogue_version', {
+	id: integer('id').primaryKey().default(1),
+	version: integer('version').notNull().default(0),
+	changedAt: timestamp('changed_at', { withTimezone: true }).notNull().defaultNow()
+});

@@ -4,4 +4,8 @@ export * from './catalogue';
 export * from './stock';
 export * from './plants';
 export * from './plans';
+export * from './secrets';
+export * from './uploads';
+export * from './milestones';
+export * from './delivery';
 export * from './board';

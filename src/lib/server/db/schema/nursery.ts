@@ -1,4 +1,5 @@
 import { boolean, integer, jsonb, pgTable, real, text, timestamp } from 'drizzle-orm/pg-core';
+import { defaultFeeding } from '../../../care/feeding';
 
 /** One row: the nursery this instance serves. */
 export const nurserySettings = pgTable('nursery_settings', {
@@ -11,6 +12,9 @@ export const nurserySettings = pgTable('nursery_settings', {
 	defaultClimate: text('default_climate').notNull(),
 	fertilizerName: text('fertilizer_name').notNull(),
 	npk: jsonb('npk').$type<[number, number, number]>().notNull(),
+	/** The scoop the plans measure with: the plan's full ration (one level can) and one handful, grams. */
+	fullRationG: real('full_ration_g').notNull().default(defaultFeeding.fullRationG),
+	handfulG: real('handful_g').notNull().default(defaultFeeding.handfulG),
 	restrictedMonths: jsonb('restricted_months').$type<number[]>().notNull().default([]),
 	nitrogenCapKgPer100m2: real('nitrogen_cap_kg_per_100m2'),
 	demo: boolean('demo').notNull().default(false),

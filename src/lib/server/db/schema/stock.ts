@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { check, date, index, integer, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import type { MovementKind } from '../../../schema/stock';
 import { users } from './auth';
 import { cultivars } from './catalogue';
 
@@ -49,7 +50,7 @@ export const stockMovements = pgTable(
 			.notNull()
 			.references(() => stockBatches.id, { onDelete: 'cascade' }),
 		change: integer('change').notNull(),
-		kind: text('kind').notNull(),
+		kind: text('kind').$type<MovementKind>().notNull(),
 		reason: text('reason').notNull().default(''),
 		userId: integer('user_id').references(() => users.id, { onDelete: 'set null' }),
 		at: createdAt()
@@ -73,6 +74,8 @@ export const sales = pgTable(
 		pricePerPlantCents: integer('price_per_plant_cents').notNull(),
 		buyerEmail: text('buyer_email'),
 		soldBy: integer('sold_by').references(() => users.id, { onDelete: 'set null' }),
+		/** Undone within the undo window: the stock went back and the plants were removed; kept so a resent sale stays undone. */
+		undoneAt: timestamp('undone_at', { withTimezone: true }),
 		createdAt: createdAt()
 	},
 	(t) => [

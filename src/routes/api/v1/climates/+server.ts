@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { catalogue } from '$lib/server/plan-preview';
+import { catalogueService } from '$lib/server/catalogue/service';
 import type { RequestHandler } from './$types';
 
 // Public: climate profiles are reference data the year planner offers to everyone.
-export const GET: RequestHandler = () => json({ climates: catalogue.climates }, { headers: { 'cache-control': 'public, max-age=3600' } });
+export const GET: RequestHandler = async () =>
+	json({ climates: (await catalogueService.climates()).map((c) => c.climate) }, { headers: { 'cache-control': 'public, max-age=60' } });

@@ -1,0 +1,44 @@
+import QRCode from 'qrcode';
+import { feedIdSchema, feedScopeFormSchema } from '$lib/schema/delivery';
+import { requireUser } from '$lib/server/auth';
+import { feeds } from '$lib/server/feeds/service';
+import { runForm } from '$lib/server/forms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireUser(event);
+	const [feedList, plants] = await Promise.all([feeds.list(user.id), feeds.plantChoices(user.id)]);
+	return { feeds: feedList, plants };
+};
+
+/** The new address, shown once, with a QR code of its webcal:// form. */
+async function shown(feed: { https: string; webcal: string }, scope: string) {
+	return { newFeed: { ...feed, scope, qrSvg: await QRCode.toString(feed.webcal, { type: 'svg', margin: 1, errorCorrectionLevel: 'M' }) } };
+}
+
+const scopeLabel = (plants: { id: number; label: string }[], plantId: number | null) =>
+	plantId === null ? 'all your plants' : (plants.find((p) => p.id === plantId)?.label ?? 'this plant');
+
+export const actions: Actions = {
+	createFeed: async (event) => {
+		const user = requireUser(event);
+		const { failure, result } = await runForm(event.request, feedScopeFormSchema, async ({ scope }) => {
+			const plantId = scope === 'all' ? undefined : scope;
+			return { feed: await feeds.create(user.id, plantId), plantId: plantId ?? null };
+		});
+		if (failure) return failure;
+		return shown(result.feed, scopeLabel(await feeds.plantChoices(user.id), result.plantId));
+	},
+	rotateFeed: async (event) => {
+		const user = requireUser(event);
+		const { failure, result } = await runForm(event.request, feedIdSchema, ({ id }) => feeds.rotate(user.id, id));
+		if (failure) return failure;
+		const feed = (await feeds.list(user.id)).find((f) => f.id === result.id);
+		return shown(result, feed?.plantId ? feed.scope : 'all your plants');
+	},
+	revokeFeed: async (event) => {
+		const user = requireUser(event);
+		const { failure } = await runForm(event.request, feedIdSchema, ({ id }) => feeds.revoke(user.id, id));
+		return failure ?? { revoked: true };
+	}
+};
