@@ -73,7 +73,8 @@ export const boardService = {
 			q.plantId && viewer && (isStaff(viewer) || viewer.id === q.askerId) ? repo.plantSummary(q.plantId) : Promise.resolve(undefined)
 		]);
 		void today;
-		return { question: q, askerName: people!.askerName, claimedByName: people!.claimedByName, posts, plant: plant ?? null };
+		const recent = plant ? (await boardService.recentMilestones([plant.plantId])).get(plant.plantId) ?? [] : [];
+		return { question: q, askerName: people!.askerName, claimedByName: people!.claimedByName, posts, plant: plant ? { ...plant, milestones: recent } : null };
 	},
 
 	async reply(id: number, body: string, asker: Person, now = new Date()) {
@@ -174,6 +175,17 @@ export const boardService = {
 	},
 
 	queue: (states: QuestionState[], limit: number, offset: number) => repo.queue(states, limit, offset),
+
+	/** Up to `perPlant` latest milestones of each plant, for showing beside its questions. */
+	async recentMilestones(plantIds: number[], perPlant = 3) {
+		const byPlant = new Map<number, { kind: string; on: string; generation: number; photoId: number | null }[]>();
+		for (const m of await repo.recentMilestones(plantIds)) {
+			const list = byPlant.get(m.plantId) ?? [];
+			if (list.length < perPlant) list.push({ kind: m.kind, on: m.on, generation: m.generation, photoId: m.photoId });
+			byPlant.set(m.plantId, list);
+		}
+		return byPlant;
+	},
 	countQueue: (states: QuestionState[]) => repo.countQueue(states),
 	listPublic: (limit: number, offset: number) => repo.listPublic(limit, offset),
 	countPublic: () => repo.countPublic(),

@@ -16,6 +16,7 @@ export const load: PageServerLoad = async (event) => {
 	const now = new Date();
 	const today = now.toISOString().slice(0, 10);
 	const rows = await boardService.queue(states, size, (page - 1) * size);
+	const milestones = await boardService.recentMilestones(rows.flatMap((q) => (q.plantId ? [q.plantId] : [])));
 	return {
 		state,
 		total,
@@ -39,7 +40,8 @@ export const load: PageServerLoad = async (event) => {
 						nextStepKind: q.nextStepKind,
 						nextStepOn: q.nextStepOn,
 						lastMilestoneKind: q.lastMilestoneKind,
-						lastMilestoneOn: q.lastMilestoneOn
+						lastMilestoneOn: q.lastMilestoneOn,
+						milestones: milestones.get(q.plantId) ?? []
 					}
 				: null
 		}))
