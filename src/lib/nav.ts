@@ -20,12 +20,14 @@ const byRole: Record<Role, NavLink[]> = {
 	],
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/questions', label: 'Question queue' },
 		{ href: '/nursery/guides', label: 'Nursery guides' }
 	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
+		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' },
 		{ href: '/nursery/questions', label: 'Question queue' },
 		{ href: '/nursery/guides', label: 'Nursery guides' }

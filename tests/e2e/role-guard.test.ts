@@ -9,6 +9,7 @@ import { postForm, sessionCookie } from '../helpers/session';
 
 const STAFF_ONLY = [
 	'/nursery/stall',
+	'/nursery/plants',
 	'/nursery/guides',
 	'/nursery/guides/new',
 	'/nursery/guides/[id]',
@@ -28,6 +29,7 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
+	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
@@ -161,6 +163,14 @@ describe('the JSON API', () => {
 		if (roles === 'owner') {
 			it(`${method} ${path} is 403 for staff`, async () => expect((await apiCall(method, path, staff)).status).toBe(403));
 		}
+	}
+	it('GET /api/v1/plants for a gardener is 200 with only plants they claimed', async () => {
+		const res = await apiCall('GET', '/api/v1/plants?claimed=no', gardener);
+		expect(res.status).toBe(200);
+		expect(((await res.json()) as { total: number }).total).toBe(0);
+	});
+	for (const path of ['/api/v1/plants', '/api/v1/plants.csv']) {
+		it(`GET ${path} is 200 for staff`, async () => expect((await apiCall('GET', path, staff)).status).toBe(200));
 	}
 	it('a cross-site form post to a cookie-authenticated endpoint is refused', async () => {
 		const res = await fetch(`${baseUrl()}/api/v1/sales`, {

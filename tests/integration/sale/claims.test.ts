@@ -97,20 +97,21 @@ describe('claiming a plant', () => {
 });
 
 describe('GET /api/v1/plants', () => {
-	it('a gardener sees their own plants with stage and next step; staff see every plant', async () => {
+	it('a gardener sees their own plants; staff see every plant; each plant has its stage and next step', async () => {
 		const { codes, ids } = await soldPlants(2);
 		await claimService.claim(codes[0], pim.id, claimInput({ plantedOn: today() }), nextIp(), today());
-		const res = await callAs(getPlants, pim, '/api/v1/plants?size=100');
+		const res = await callAs(getPlants, pim, '/api/v1/plants?perPage=100');
 		expect(res.status).toBe(200);
-		const body = (await res.json()) as { plants: { id: number; nextStep: { kind: string; on: string } | null; stage: { id: string } | null }[]; total: number; page: number; size: number };
+		const body = (await res.json()) as { plants: { id: number }[]; total: number };
 		expect(body.plants.map((p) => p.id)).toContain(ids[0]);
 		expect(body.plants.map((p) => p.id)).not.toContain(ids[1]);
-		const mine = body.plants.find((p) => p.id === ids[0])!;
+		const one = await callAs(getPlant, pim, `/api/v1/plants/${ids[0]}`, { params: { id: String(ids[0]) } });
+		const mine = ((await one.json()) as { plant: { nextStep: { kind: string; on: string } | null; stage: { id: string } | null } }).plant;
 		expect(mine.stage?.id).toBe('planted');
 		// The next step is the engine's first step from today on, for the same inputs.
 		const plan = computePlan({ cultivar: findCultivar('grand-nain')!, plantedOn: today(), ageAtPlantingWeeks: 12, climate: { monthlyMeanC: findClimate('south-florida-coast')!.monthlyMeanC } });
 		expect(mine.nextStep).toMatchObject({ kind: plan.steps[0].kind, on: plan.steps[0].likely });
-		const all = (await (await callAs(getPlants, staff, '/api/v1/plants?size=100')).json()) as { total: number };
+		const all = (await (await callAs(getPlants, staff, '/api/v1/plants?perPage=100')).json()) as { total: number };
 		expect(all.total).toBeGreaterThan(body.total);
 	});
 

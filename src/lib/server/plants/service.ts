@@ -1,6 +1,7 @@
 /**
- * Plants as their owners and the nursery see them: a page of plants for a scope (a gardener's own,
- * or all for staff), each with its stage and next step from `plantStatus`. A gardener asking for a
+ * One plant as its owner and the nursery see it, in a scope (a gardener's own, or all for staff),
+ * with its stage and next step from `plantStatus`. Lists of plants, with filters, sorting and
+ * counts over the stored stage and next step, are the nursery table's (src/lib/server/plant-table). A gardener asking for a
  * plant that is not theirs gets the same 404 as for one that does not exist.
  */
 import { eq } from 'drizzle-orm';
@@ -20,12 +21,6 @@ export interface PlantsDeps {
 	db: AnyDb;
 	cultivarById: (id: number) => Promise<{ cultivar: Cultivar } | undefined>;
 	feeding: () => Promise<FeedingSettings>;
-}
-
-/** Paging now; the nursery's table adds filters and a sort order to this query. */
-export interface PlantQuery {
-	page: number;
-	size: number;
 }
 
 export interface PlantView extends PlantStatus {
@@ -75,15 +70,6 @@ export function createPlantsService({ db, cultivarById, feeding }: PlantsDeps) {
 	}
 
 	return {
-		async page(scope: PlantScope, query: PlantQuery, today: string) {
-			const where = plantFilters(scope);
-			const total = await repo.count(where);
-			// A page past the end shows the last page rather than an empty list.
-			const page = Math.min(query.page, Math.max(1, Math.ceil(total / query.size)));
-			const rows = await repo.page(where, query.size, (page - 1) * query.size);
-			return { plants: await views(rows, scope, today), total, page, size: query.size };
-		},
-
 		/** One plant in a scope; 404 when it is missing or belongs to someone else. */
 		async one(scope: PlantScope, id: number, today: string): Promise<PlantView> {
 			const row = await repo.one([...plantFilters(scope), eq(plants.id, id)]);

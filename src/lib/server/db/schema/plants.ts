@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { date, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, type AnyPgColumn } from 'drizzle-orm/pg-core';
 import { users } from './auth';
 import { climateProfiles, cultivars } from './catalogue';
@@ -44,9 +45,17 @@ export const plants = pgTable(
 		uniqueIndex('plants_claim_code_key').on(t.claimCodeHash),
 		index('plants_gardener_idx').on(t.gardenerId),
 		index('plants_sale_idx').on(t.saleId),
-		index('plants_cultivar_idx').on(t.cultivarId),
+		// The nursery's table filters by cultivar and sorts by next step at once (also serves the foreign key).
+		index('plants_cultivar_idx').on(t.cultivarId, t.nextStepOn, t.id),
 		index('plants_parent_idx').on(t.parentPlantId),
 		index('plants_next_step_idx').on(t.nextStepOn, t.id),
-		index('plants_stage_idx').on(t.stage, t.nextStepOn)
+		index('plants_stage_idx').on(t.stage, t.nextStepOn, t.id),
+		// Cultivar and stage together: the filtered page in next-step order, and its count from the index alone.
+		index('plants_cultivar_stage_idx').on(t.cultivarId, t.stage, t.nextStepOn, t.id),
+		// The table's other sorts, each with the id as tie-breaker so a page is one index scan.
+		index('plants_sold_on_idx').on(t.soldOn, t.id),
+		index('plants_last_milestone_idx').on(t.lastMilestoneOn, t.id),
+		// Age sorts by the day growth started: the sale day less the age then.
+		index('plants_started_idx').on(sql`(${t.soldOn} - ${t.ageAtSaleWeeks} * 7)`, t.id)
 	]
 );

@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
-import { pageQuery } from '$lib/schema/paging';
-import { apiRoute } from '$lib/server/api';
+import { plantTableQuerySchema, queryObject } from '$lib/schema/plant-table';
+import { apiRoute, parseInput } from '$lib/server/api';
 import { requireUser } from '$lib/server/auth';
-import { nurseryToday, plantsService } from '$lib/server/sale-side';
-import { scopeFor } from '$lib/server/plants/service';
+import { plantTableService } from '$lib/server/plant-table/service';
 import type { RequestHandler } from './$types';
 
-/** Plants, a page at a time: staff and the owner see all, a gardener their own. */
+/** Staff and the owner: every plant, filtered, sorted and paged. A gardener: only their own. */
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const user = requireUser(event);
-	return json(await plantsService.page(scopeFor(user), pageQuery(event.url), await nurseryToday()));
+	const query = parseInput(plantTableQuerySchema, queryObject(event.url.searchParams));
+	return json(await plantTableService.list(query, user), { headers: { 'cache-control': 'private, no-store' } });
 });

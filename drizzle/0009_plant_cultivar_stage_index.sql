@@ -1,0 +1,1 @@
+CREATE INDEX "plants_cultivar_stage_idx" ON "plants" USING btree ("cultivar_id","stage","next_step_on","id");
