@@ -10,6 +10,7 @@ import { postForm, sessionCookie } from '../helpers/session';
 const STAFF_ONLY = [
 	'/nursery/stall',
 	'/nursery/plants',
+	'/nursery/plants/import',
 	'/nursery/guides',
 	'/nursery/guides/new',
 	'/nursery/guides/[id]',
@@ -30,6 +31,7 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/sales/1', method: 'DELETE', roles: 'staff' },
 	{ path: '/api/v1/plants', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/plants.csv', method: 'GET', roles: 'staff' },
+	{ path: '/api/v1/past-sales', method: 'POST', roles: 'staff' },
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
