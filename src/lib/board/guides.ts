@@ -1,5 +1,6 @@
 /** Rules of the guide library that need no database: slugs, the combined listing, revision diffs. */
 import { diffLines } from 'diff';
+import { PLANT_STAGE_IDS, stageLabel, type PlantStage } from '../care';
 
 /** A web address made from a title: "Feeding in a cold winter!" → "feeding-in-a-cold-winter". */
 export function slugify(title: string, max = 80): string {
@@ -62,4 +63,9 @@ export function compareTexts(before: string, after: string): DiffLine[] {
 		const change = part.added ? 'added' : part.removed ? 'removed' : 'same';
 		return part.value.replace(/\n$/, '').split('\n').map((text) => ({ change, text }) as DiffLine);
 	});
+}
+
+/** A stage tag as people read it ("Growing leaves"); a tag no longer in the vocabulary shows as stored. */
+export function stageName(tag: string): string {
+	return (PLANT_STAGE_IDS as string[]).includes(tag) ? stageLabel(tag as PlantStage) : tag;
 }

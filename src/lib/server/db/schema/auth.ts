@@ -1,4 +1,5 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { UNITS } from '../../../care/vocabulary';
 
 export const roleEnum = pgEnum('role', ['owner', 'staff', 'gardener']);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
@@ -14,7 +15,7 @@ export const users = pgTable(
 		passwordHash: text('password_hash').notNull(),
 		role: roleEnum('role').notNull().default('gardener'),
 		emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
-		units: text('units', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+		units: text('units', { enum: UNITS }).notNull().default('metric'),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('users_email_key').on(t.email)]
