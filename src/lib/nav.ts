@@ -21,6 +21,7 @@ const byRole: Record<Role, NavLink[]> = {
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/plants', label: 'Plants sold' },
+		{ href: '/nursery/reminders', label: 'Reminders' },
 		{ href: '/nursery/questions', label: 'Question queue' },
 		{ href: '/nursery/guides', label: 'Nursery guides' }
 	],
@@ -29,6 +30,7 @@ const byRole: Record<Role, NavLink[]> = {
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/plants', label: 'Plants sold' },
 		{ href: '/nursery/team', label: 'Team' },
+		{ href: '/nursery/reminders', label: 'Reminders' },
 		{ href: '/nursery/questions', label: 'Question queue' },
 		{ href: '/nursery/guides', label: 'Nursery guides' }
 	]

@@ -11,6 +11,7 @@ const STAFF_ONLY = [
 	'/nursery/stall',
 	'/nursery/plants',
 	'/nursery/plants/import',
+	'/nursery/reminders',
 	'/nursery/guides',
 	'/nursery/guides/new',
 	'/nursery/guides/[id]',
