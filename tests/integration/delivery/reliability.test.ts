@@ -210,12 +210,12 @@ describe('reminder worker reliability', () => {
 		pg.stop();
 		await new Promise((r) => setTimeout(r, 1500));
 		pg.start();
-		await until('all sent after the restart', async () => (await counts()).sent === 200, 60_000);
+		await until('all sent after the restart', async () => (await counts()).sent === 200, 100_000);
 		expect(worker.exitCode).toBeNull();
 		const copies = copiesByMessageId();
 		expect(copies.size).toBe(200);
 		await stopWorker(worker);
-	}, 120_000);
+	}, 150_000);
 
 	it('two workers at once send nothing twice', async () => {
 		await dueReminders(200);
