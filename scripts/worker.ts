@@ -1,18 +1,19 @@
-// The job worker: consumes the queues of src/lib/server/jobs.ts. Safe to run as many copies as
-// needed (pg-boss hands each job to one worker). Today it sends account e-mail (confirmation,
-// reset, invitation) outside the request; reminders arrive with the plant pages and are only logged.
+// The job worker: sends account e-mail (confirmation, reset, invitation) and reminder e-mail
+// (from the reminder table) through pg-boss. Safe to run as many copies as needed
+// (`npm run worker`; pg-boss hands each job to one worker); `npm start` runs one beside the app.
 import { isMainModule } from './main-module.mjs';
 import { environmentOrExit } from '../src/lib/server/env.js';
 
 export async function startWorker(): Promise<() => Promise<void>> {
 	// Imported here so the environment (DATABASE_URL, SMTP_PORT…) is read once it is final.
-	const { consume, QUEUES, stopJobs } = await import('../src/lib/server/jobs');
+	const { consume, QUEUES } = await import('../src/lib/server/jobs');
 	const { runAccountMailJob } = await import('../src/lib/server/accounts/mail');
+	const { startReminderWorker } = await import('../src/lib/server/reminders/worker');
 	const { closeDb } = await import('../src/lib/server/db');
 	await consume(QUEUES.accountMail, runAccountMailJob);
-	await consume<{ id?: string }>(QUEUES.reminders, async (job) => console.log(`[worker] reminder job ${JSON.stringify(job)}`));
+	const stop = await startReminderWorker();
 	return async () => {
-		await stopJobs();
+		await stop();
 		await closeDb();
 	};
 }

@@ -41,6 +41,12 @@ export const BUD_REMOVAL_AFTER_SHOOTING_DEGREE_DAYS = (14 / 365) * REFERENCE_YEA
  */
 export const HOME_RIPENESS_FACTOR = 1.35;
 
+/**
+ * A follower grows held back while its mother stands (shaded, and sharing the corm's food) and at
+ * the full rate once she is harvested. Provisional value, calibrated in docs/calibration.md.
+ */
+export const HELD_BACK_RATE = 0.5;
+
 /** Stem removal at ground level about 2 weeks after the cut-back (common practice, no source). */
 export const STEM_REMOVAL_AFTER_CUT_BACK_DAYS = 14;
 

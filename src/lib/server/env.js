@@ -19,6 +19,13 @@ export const DEFAULTS = /** @type {const} */ ({
 	mailDir: 'dev-mail',
 	/** Requests a minute one address may make to /api/ (each app instance counts its own). */
 	apiRequestsPerMinute: 120,
+	/** The reminder worker's pace (the reliability tests shorten these so crash and retry paths run in seconds). */
+	reminderTickMs: 15_000,
+	reminderLeaseMs: 10 * 60_000,
+	reminderRetryBaseMs: 60_000,
+	reminderMaxAttempts: 6,
+	reminderConcurrency: 4,
+	smtpTimeoutMs: 60_000,
 	database: 'bunchline',
 	dbUser: 'app',
 	dbPassword: 'app'
@@ -50,6 +57,14 @@ const httpUrl = (/** @type {string} */ name) =>
 		}, `${name} must be an origin like https://plants.example.org (no path)`)
 		.transform((v) => new URL(v).origin);
 
+const atLeastOne = (/** @type {string} */ name) =>
+	z
+		.string()
+		.trim()
+		.regex(/^\d{1,9}$/, `${name} must be a whole number`)
+		.transform(Number)
+		.refine((n) => n >= 1, `${name} must be at least 1`);
+
 const schema = z.object({
 	BUNCHLINE_ENV: z.enum(MODES, { error: `BUNCHLINE_ENV must be one of ${MODES.join(', ')} (lower case)` }).optional(),
 	NODE_ENV: z.string().optional(),
@@ -67,13 +82,13 @@ const schema = z.object({
 	MAIL_DIR: z.string().trim().min(1).optional(),
 	/** Its length and presence in production are checked by src/lib/server/secrets.ts, which says how to make one. */
 	CLAIM_SECRET: z.string().optional(),
-	API_REQUESTS_PER_MINUTE: z
-		.string()
-		.trim()
-		.regex(/^\d{1,9}$/, 'API_REQUESTS_PER_MINUTE must be a whole number')
-		.transform(Number)
-		.refine((n) => n >= 1, 'API_REQUESTS_PER_MINUTE must be at least 1')
-		.optional()
+	API_REQUESTS_PER_MINUTE: atLeastOne('API_REQUESTS_PER_MINUTE').optional(),
+	REMINDER_TICK_MS: atLeastOne('REMINDER_TICK_MS').optional(),
+	REMINDER_LEASE_MS: atLeastOne('REMINDER_LEASE_MS').optional(),
+	REMINDER_RETRY_BASE_MS: atLeastOne('REMINDER_RETRY_BASE_MS').optional(),
+	REMINDER_MAX_ATTEMPTS: atLeastOne('REMINDER_MAX_ATTEMPTS').optional(),
+	REMINDER_CONCURRENCY: atLeastOne('REMINDER_CONCURRENCY').optional(),
+	SMTP_TIMEOUT_MS: atLeastOne('SMTP_TIMEOUT_MS').optional()
 });
 
 /** Thrown when the environment cannot be trusted; the message names every variable at fault. */
@@ -117,7 +132,15 @@ export function parseEnvironment(env = process.env, options = {}) {
 		},
 		mailDir: e.MAIL_DIR ?? DEFAULTS.mailDir,
 		apiRequestsPerMinute: e.API_REQUESTS_PER_MINUTE ?? DEFAULTS.apiRequestsPerMinute,
-		claimSecret: e.CLAIM_SECRET ?? null
+		claimSecret: e.CLAIM_SECRET ?? null,
+		reminders: {
+			tickMs: e.REMINDER_TICK_MS ?? DEFAULTS.reminderTickMs,
+			leaseMs: e.REMINDER_LEASE_MS ?? DEFAULTS.reminderLeaseMs,
+			retryBaseMs: e.REMINDER_RETRY_BASE_MS ?? DEFAULTS.reminderRetryBaseMs,
+			maxAttempts: e.REMINDER_MAX_ATTEMPTS ?? DEFAULTS.reminderMaxAttempts,
+			concurrency: e.REMINDER_CONCURRENCY ?? DEFAULTS.reminderConcurrency,
+			smtpTimeoutMs: e.SMTP_TIMEOUT_MS ?? DEFAULTS.smtpTimeoutMs
+		}
 	};
 }
 

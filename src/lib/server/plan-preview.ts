@@ -4,7 +4,7 @@
  * snapshot (`catalogueService.snapshot()`). Nothing is stored: previews are for anyone.
  */
 import { createHash } from 'node:crypto';
-import { computePlan, type Cultivar, type Plan, type PlanInput } from '$lib/care';
+import { PlanInputError, computePlan, type Cultivar, type Plan, type PlanInput } from '$lib/care';
 import { CUSTOM_CLIMATE, planQuerySchema, planQueryString, queryValues, splitMeanValues, type PlanRequest, type QueryValues } from '$lib/schema/plan';
 import { fieldErrors, type FieldErrors } from '$lib/schema/form';
 import { formatDay } from '$lib/plan-text';
@@ -41,7 +41,8 @@ export function toPlanInput(request: PlanRequest, catalogue: CatalogueSnapshot):
 		climate: { monthlyMeanC },
 		units: request.units ?? 'metric',
 		feeding: catalogue.feeding,
-		...(request.observed ? { observed: request.observed } : {})
+		...(request.observed ? { observed: request.observed } : {}),
+		...(request.observedFollowers ? { observedFollowers: request.observedFollowers } : {})
 	};
 }
 
@@ -141,6 +142,16 @@ function formValues(raw: QueryValues, catalogue: CatalogueSnapshot): PlannerValu
 	};
 }
 
+/** Engine refusals keyed like the form's fields (the query string is flat: `shotOn`, `monthlyMeanC.3`). */
+function planInputFieldErrors(error: PlanInputError): FieldErrors {
+	const out: FieldErrors = {};
+	for (const issue of error.issues) {
+		const path = issue.path[0] === 'observed' || issue.path[0] === 'climate' ? issue.path.slice(1) : issue.path;
+		out[path.join('.') || 'form'] ??= issue.message;
+	}
+	return out;
+}
+
 /** Offered cultivars; a retired one only when a shared link asks for it, so the form shows what the plan is for. */
 function cultivarOptions(catalogue: CatalogueSnapshot, asked: string | undefined) {
 	const retired = asked ? catalogue.cultivar(asked.trim()) : undefined;
@@ -171,6 +182,8 @@ export function plannerView(params: URLSearchParams, catalogue: CatalogueSnapsho
 		preview = previewPlan(parsed.data, catalogue);
 	} catch (e) {
 		if (e instanceof UserFacingError) return { ...base, errors: { [e.field]: e.message }, result: null };
+		// The schema asks what the engine asks, so this is a safety net: a refusal is a field error, not a 500.
+		if (e instanceof PlanInputError) return { ...base, errors: planInputFieldErrors(e), result: null };
 		throw e;
 	}
 	return {

@@ -1,5 +1,6 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 import { ROLES } from '../../../schema/auth';
+import { UNITS } from '../../../care/vocabulary';
 
 export const roleEnum = pgEnum('role', ROLES);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
@@ -15,7 +16,7 @@ export const users = pgTable(
 		passwordHash: text('password_hash').notNull(),
 		role: roleEnum('role').notNull().default('gardener'),
 		emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
-		units: text('units', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+		units: text('units', { enum: UNITS }).notNull().default('metric'),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('users_email_key').on(t.email)]
