@@ -10,7 +10,9 @@ export async function startWorker(): Promise<() => Promise<void>> {
 	const { runAccountMailJob } = await import('../src/lib/server/accounts/mail');
 	const { startReminderWorker } = await import('../src/lib/server/reminders/worker');
 	const { closeDb } = await import('../src/lib/server/db');
-	await consume(QUEUES.accountMail, runAccountMailJob);
+	// One job per fetch, so a failed send retries only its own message; four loops keep a burst of
+	// sign-ups from queueing the next person's link behind 0.5 s polls.
+	await consume(QUEUES.accountMail, runAccountMailJob, { workers: 4 });
 	const stop = await startReminderWorker();
 	return async () => {
 		await stop();
