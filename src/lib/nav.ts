@@ -7,23 +7,32 @@ export interface NavLink {
 
 const publicLinks: NavLink[] = [
 	{ href: '/planner', label: 'Year planner' },
-	{ href: '/guides', label: 'Guides' }
+	{ href: '/guides', label: 'Guides' },
+	{ href: '/questions', label: 'Questions' },
+	{ href: '/search', label: 'Search' }
 ];
 
 const byRole: Record<Role, NavLink[]> = {
 	gardener: [
 		{ href: '/plants', label: 'My plants' },
+		{ href: '/ask', label: 'Ask the nursery' },
 		{ href: '/settings', label: 'Settings' }
 	],
 	staff: [
 		{ href: '/nursery/stall', label: 'Stall' },
-		{ href: '/nursery/plants', label: 'Plants sold' }
+		{ href: '/nursery/plants', label: 'Plants sold' },
+		{ href: '/nursery/reminders', label: 'Reminders' },
+		{ href: '/nursery/questions', label: 'Question queue' },
+		{ href: '/nursery/guides', label: 'Nursery guides' }
 	],
 	owner: [
 		{ href: '/nursery', label: 'Dashboard' },
 		{ href: '/nursery/stall', label: 'Stall' },
 		{ href: '/nursery/plants', label: 'Plants sold' },
-		{ href: '/nursery/team', label: 'Team' }
+		{ href: '/nursery/team', label: 'Team' },
+		{ href: '/nursery/reminders', label: 'Reminders' },
+		{ href: '/nursery/questions', label: 'Question queue' },
+		{ href: '/nursery/guides', label: 'Nursery guides' }
 	]
 };
 

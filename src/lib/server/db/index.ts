@@ -7,3 +7,4 @@ const client = postgres(config.databaseUrl, { max: 10, onnotice: () => {} });
 export const db = drizzle(client, { schema });
 export type Db = typeof db;
 export { schema };
+export const closeDb = () => client.end({ timeout: 5 });
