@@ -44,17 +44,20 @@ export function bananaDevelopmentRate(meanC: number): number {
 
 /**
  * Leaf emission (the plant's development up to shooting) against the day's mean, °C → °C·d.
- * Allen, Dettmann, Johns & Turner (1988, Aust. J. Agric. Res. 39:53) fitted leaf emission of
- * Cavendish to monthly means from about 13 °C, with its optimum near 28.5 °C (as cited in the
- * calibration brief; the paper's coefficients are not reproduced here). Monthly means hide warm
- * afternoons, so a month averaging 14–16 °C still moves a plant on: the response here runs
- * linearly from `baseC` to the optimum, holds to `optimumHighC` and falls to nothing at 38 °C.
- * `baseC` is fitted to the published anchors in docs/calibration.md, not taken from a source.
+ * Allen, Dettmann, Johns & Turner ("Estimation of leaf emergence rates of bananas", Aust. J.
+ * Agric. Res. 39:53, 1988; title from memory) fitted leaf emission of Cavendish to monthly means
+ * from about 13 °C, with its optimum near 28.5 °C; their coefficients are not reproduced here.
+ * Monthly means hide warm afternoons, so a month averaging 14–16 °C still moves a plant on: the
+ * response runs linearly from `baseC` to the optimum, holds to 33 °C (the plateau's upper end is
+ * the one `BANANA_RESPONSE` uses) and falls to nothing at 38 °C. `baseC` (9 °C) is fitted to the
+ * published anchors in docs/calibration.md, not taken from a source: at 10 °C an autumn planting
+ * at Alstonville flowers later than Turner's 1972 figure allows, and every half degree lower
+ * shortens Tenerife's later bunches towards the 11 months of the Canarian figure.
  */
 export const LEAF_RESPONSE = {
-	baseC: 10,
+	baseC: 9,
 	optimumLowC: 28.5,
-	optimumHighC: 31,
+	optimumHighC: 33,
 	ceilingC: 38
 } as const;
 
