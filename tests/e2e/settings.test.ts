@@ -74,7 +74,11 @@ describe('reminder e-mails', () => {
 		// Back to one e-mail per step, and one reminder made due now, sent the way the worker sends it.
 		await page.getByLabel(/An e-mail for each step/).check();
 		await page.getByRole('button', { name: 'Save' }).click();
-		await page.getByText('Saved.').waitFor();
+		// "Saved." is already on the page from the first save: wait for the new choice to be stored
+		// (the save re-syncs the reminders in the same transaction) before picking a due row.
+		await expect
+			.poll(async () => (await db.select().from(reminderPreferences).where(eq(reminderPreferences.userId, maeId)))[0]?.mode, { timeout: 15_000 })
+			.toBe('each-step');
 		const [due] = await db.select({ id: reminders.id }).from(reminders).where(and(eq(reminders.userId, maeId), eq(reminders.state, 'due'))).limit(1);
 		await db.update(reminders).set({ dueAt: new Date(Date.now() - 60_000) }).where(eq(reminders.id, due.id));
 		const transport = reminderTransport();

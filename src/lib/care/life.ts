@@ -21,6 +21,7 @@ import {
 
 export interface LifeContext {
 	cultivar: Cultivar;
+	/** The development clock (`leafEmissionRate`): every distance in a forecast is measured on it. */
 	clock: ThermalClock;
 	plantDay: EpochDay;
 }

@@ -5,7 +5,7 @@
  */
 import type { FeedingSettings, Observed, Plan, PlanInput, Step, StepKind, Units } from './types';
 import { formatIsoDate, parseIsoDate, type EpochDay } from './dates';
-import { thermalClockFor, type ThermalClock } from './thermal';
+import { leafClockFor, thermalClockFor, type ThermalClock } from './thermal';
 import { factOn, from, pinnedWindow, shiftWindow, windowOf, type Forecast, type Window } from './forecast';
 import { followerLife, leavesOutAtPlanting, motherLife, type Life, type LifeContext } from './life';
 import { NEW_LEAVES_BEFORE_FEEDING, STEM_REMOVAL_AFTER_CUT_BACK_DAYS, degreeDaysForLeaves, windowShare } from './model';
@@ -115,7 +115,7 @@ export function computePlan(input: PlanInput): Plan {
 	if (issues.length > 0) throw new PlanInputError(issues);
 	const plantDay = parseIsoDate(input.plantedOn);
 	const generations = generationsOf(input);
-	const clock = thermalClockFor(input.climate.monthlyMeanC);
+	const clock = leafClockFor(input.climate.monthlyMeanC);
 	const feeding: FeedingSettings = input.feeding ?? defaultFeeding;
 	validateFeeding(feeding);
 	const observed = input.observed ?? {};

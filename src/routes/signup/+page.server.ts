@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import { acceptInviteSchema, signUpSchema, tokenField } from '$lib/schema/auth';
-import { accounts } from '$lib/server/accounts/service';
+import { accounts, INVITATION_STATE_TEXT } from '$lib/server/accounts/service';
 import { startSession } from '$lib/server/auth';
 import { runForm } from '$lib/server/forms';
 import { HOME_FOR, safeNext } from '$lib/nav';
@@ -12,20 +12,22 @@ export const load: PageServerLoad = async ({ url }) => {
 	// Where to go once the account is confirmed (e.g. back to a plant's claim page).
 	const next = safeNext(url.searchParams.get('next'), '') || null;
 	if (!token) return { invite: null, next };
-	const inv = tokenField.safeParse(token).success ? await accounts.findInvitation(token) : undefined;
-	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const }, next };
+	const found = tokenField.safeParse(token).success ? await accounts.invitationState(token) : ({ state: 'unknown' } as const);
+	if (found.state === 'live') return { invite: { token, email: found.email, role: found.role }, next };
+	// A used, replaced or expired link says which, and what to do instead.
+	return { invite: { token, closed: INVITATION_STATE_TEXT[found.state] }, next };
 };
 
 export const actions: Actions = {
 	// Public: sign-up.
 	create: async ({ request, getClientAddress, url }) => {
 		const next = safeNext(url.searchParams.get('next'), '') || undefined;
-		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, getClientAddress(), new Date(), next));
+		const { failure, result } = await runForm(request, signUpSchema, (data) => accounts.signUp(data, getClientAddress(), next));
 		return failure ?? { sentTo: result.email };
 	},
 	// Public: the invitation token is the credential.
-	accept: async ({ request, cookies }) => {
-		const { failure, result: user } = await runForm(request, acceptInviteSchema, (data) => accounts.acceptInvitation(data));
+	accept: async ({ request, cookies, getClientAddress }) => {
+		const { failure, result: user } = await runForm(request, acceptInviteSchema, (data) => accounts.acceptInvitation(data, getClientAddress()));
 		if (failure) return failure;
 		await startSession(cookies, user.id);
 		redirect(303, HOME_FOR[user.role]);

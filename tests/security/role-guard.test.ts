@@ -1,14 +1,43 @@
-// Every protected page answers 403 to a gardener and sends a signed-out visitor to sign-in.
+// The role × route matrix (ASVS 8.2.1, 8.3.1): every protected page answers 403 to the wrong role
+// and sends a signed-out visitor to sign-in; the guard runs on the server for pages and actions.
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { baseUrl } from '../helpers/browser';
+import { postForm, sessionCookie } from '../helpers/session';
 
-const STAFF_ONLY = ['/nursery/stall', '/nursery/stock', '/nursery/sales/1/card', '/nursery/plants', '/nursery/plants/import', '/nursery/reminders'];
-const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants', '/settings'];
+const STAFF_ONLY = [
+	'/nursery/stall',
+	'/nursery/stock',
+	'/nursery/sales/1/card',
+	'/nursery/plants',
+	'/nursery/plants/import',
+	'/nursery/reminders',
+	'/nursery/guides',
+	'/nursery/guides/new',
+	'/nursery/guides/[id]',
+	'/nursery/guides/[id]/revisions/1',
+	'/nursery/questions',
+	'/nursery/questions/[id]'
+];
+const CATALOGUE_PAGES = ['/nursery/cultivars', '/nursery/cultivars/new', '/nursery/cultivars/grand-nain', '/nursery/climates', '/nursery/settings'];
+/** Owner-only form actions: gardeners and staff get 403 and nothing is written. */
+const OWNER_ACTIONS = [
+	'/nursery/cultivars/new',
+	'/nursery/cultivars/grand-nain?/save',
+	'/nursery/cultivars/grand-nain?/retire',
+	'/nursery/climates',
+	'/nursery/climates/grand-nain?/save',
+	'/nursery/climates/grand-nain?/delete',
+	'/nursery/settings'
+];
+const GARDENER_ONLY = ['/ask'];
+/** Pages of one gardener's own things: 404 to everyone but their owner and staff, signed out too. */
+const ASKER_ONLY = ['/questions/[id]'];
+const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml', ...CATALOGUE_PAGES, '/nursery/climates/grand-nain'];
+const SIGNED_IN = ['/plants', '/settings', '/settings/account'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
 	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
@@ -21,7 +50,8 @@ const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in
 	{ path: '/api/v1/plants/1', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'GET', roles: 'signed-in' },
 	{ path: '/api/v1/feeds', method: 'POST', roles: 'signed-in' },
-	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' }
+	{ path: '/api/v1/feeds/1', method: 'DELETE', roles: 'signed-in' },
+	{ path: '/api/preview', method: 'POST', roles: 'signed-in' }
 ];
 /** Pages anyone may open whose actions need an account (the claim page shows the plant first). */
 const ACTIONS_SIGNED_IN = ['/claim/abcdefghijklmnopqrstuvwxyz234567'];
@@ -32,23 +62,15 @@ const apiCall = (method: string, path: string, cookie?: string) =>
 		headers: { 'content-type': 'application/json', ...(cookie ? { cookie } : {}) },
 		...(method === 'GET' ? {} : { body: '{}' })
 	});
-
-async function sessionCookie(email: string): Promise<string> {
-	const login = await fetch(`${baseUrl()}/login?/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: baseUrl() },
-		body: new URLSearchParams({ email, password: DEMO_PASSWORD })
-	});
-	const cookie = login.headers.getSetCookie().find((c) => c.startsWith('bunchline_session='));
-	if (!cookie) throw new Error(`no session for ${email} (${login.status})`);
-	return cookie.split(';')[0];
-}
+/** The draft guide and the private question the "[id]"s below stand for, written in beforeAll. */
+let guideId = 0;
+let questionId = 0;
+const at = (path: string) => path.replace(/^\/nursery\/guides\/\[id\]/, `/nursery/guides/${guideId}`).replace(/questions\/\[id\]/, `questions/${questionId}`);
 
 const get = (path: string, cookie?: string) =>
-	fetch(`${baseUrl()}${path}`, { redirect: 'manual', headers: cookie ? { cookie } : {} });
+	fetch(`${baseUrl()}${at(path)}`, { redirect: 'manual', headers: cookie ? { cookie } : {} });
 const post = (path: string, cookie?: string) =>
-	fetch(`${baseUrl()}${path}`, {
+	fetch(`${baseUrl()}${at(path)}`, {
 		method: 'POST',
 		redirect: 'manual',
 		headers: { 'content-type': 'application/x-www-form-urlencoded', accept: 'text/html', origin: baseUrl(), ...(cookie ? { cookie } : {}) },
@@ -65,10 +87,11 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[id]', '1').replace('[code]', 'abcdefghijklmnopqrstuvwxyz234567');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[number]', '1').replace('[slug]', 'grand-nain').replace('/nursery/sales/[id]', '/nursery/sales/1').replace('[code]', 'abcdefghijklmnopqrstuvwxyz234567').replace(/^(\/api\/v1\/[\w-]+\/)\[id\]/, '$11');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
+let otherGardener: string;
 let staff: string;
 let owner: string;
 
@@ -79,18 +102,26 @@ beforeAll(async () => {
 		sessionCookie(DEMO_ACCOUNTS[1].email),
 		sessionCookie(DEMO_ACCOUNTS[3].email)
 	]);
+	const draft = await postForm('/nursery/guides/new', { title: 'Role guard draft', summary: 'A draft for the guard tests.', body: 'Text.' }, staff);
+	guideId = Number(draft.headers.get('location')?.match(/\/nursery\/guides\/(\d+)/)?.[1]);
+	if (!guideId) throw new Error(`no draft guide (${draft.status})`);
+	const asked = await postForm('/ask', { title: 'Role guard question', body: 'A private question for the guard tests.' }, gardener);
+	questionId = Number(asked.headers.get('location')?.match(/\/questions\/(\d+)/)?.[1]);
+	if (!questionId) throw new Error(`no question (${asked.status})`);
+	otherGardener = await sessionCookie(DEMO_ACCOUNTS[4].email);
 });
 afterAll(() => {});
 
 describe('coverage', () => {
 	it('every guarded route in src/routes is exercised below', () => {
-		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT, ...API.map((a) => a.path), ...ACTIONS_SIGNED_IN]);
+		const tested = new Set([...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...GARDENER_ONLY, ...ASKER_ONLY, SIGN_OUT, ...API.map((a) => a.path), ...ACTIONS_SIGNED_IN]);
 		for (const route of guardedRoutes()) expect(tested, route).toContain(asTested(route));
 	});
 });
 
 describe('signed out', () => {
-	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, SIGN_OUT]) {
+	for (const path of ASKER_ONLY) it(`GET ${path} of a private question is 404`, async () => expect((await get(path)).status).toBe(404));
+	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...GARDENER_ONLY, SIGN_OUT]) {
 		it(`GET ${path} redirects to sign-in`, async () => {
 			const res = await get(path);
 			expect(res.status).toBe(303);
@@ -117,10 +148,17 @@ describe('signed out', () => {
 });
 
 describe('a gardener', () => {
+	for (const path of GARDENER_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, gardener)).status).toBe(200));
+	for (const path of ASKER_ONLY) {
+		it(`GET ${path} is 200 for its asker and 404 for another gardener`, async () => {
+			expect((await get(path, gardener)).status).toBe(200);
+			expect((await get(path, otherGardener)).status).toBe(404);
+		});
+	}
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
 	}
-	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', '/nursery/stall?/sell', '/nursery/stall?/undo', '/nursery/stock?/receive', '/nursery/stock?/adjust', '/nursery/stock?/move', '/nursery/stock?/marketDay', '/nursery/sales/1/card?/resend', '/nursery/sales/1/card?/reissue']) {
+	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', '/nursery/stall?/sell', '/nursery/stall?/undo', '/nursery/stock?/receive', '/nursery/stock?/adjust', '/nursery/stock?/move', '/nursery/stock?/marketDay', '/nursery/sales/1/card?/resend', '/nursery/sales/1/card?/reissue', '/nursery/guides/new', '/nursery/guides/[id]?/save', '/nursery/guides/[id]?/publish', '/nursery/guides/[id]?/restore', '/nursery/questions/[id]?/answer', '/nursery/questions/[id]?/claim', '/nursery/questions/[id]?/state', '/nursery/questions/[id]?/guide', ...OWNER_ACTIONS]) {
 		it(`POST ${action} is 403`, async () => {
 			const res = await post(action, gardener);
 			expect(res.status).toBe(403);
@@ -190,12 +228,26 @@ describe('feeds of another account', () => {
 
 describe('staff', () => {
 	for (const path of STAFF_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
+	for (const path of GARDENER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	for (const path of ASKER_ONLY) it(`GET ${path} is 200`, async () => expect((await get(path, staff)).status).toBe(200));
+	it('cannot publish a guide', async () => {
+		expect((await post('/nursery/guides/[id]?/publish', staff)).status).toBe(403);
+		expect((await post('/nursery/guides/[id]?/unpublish', staff)).status).toBe(403);
+		expect((await post('/nursery/questions/[id]?/guide', staff)).status).toBe(403);
+		expect((await get(`/guides/role-guard-draft`)).status).toBe(404);
+	});
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
 	it('POST /nursery/stock?/receive (the owner receives stock) is 403', async () => expect((await post('/nursery/stock?/receive', staff)).status).toBe(403));
+	for (const action of OWNER_ACTIONS) it(`POST ${action} is 403`, async () => expect((await post(action, staff)).status).toBe(403));
+	it('a refused owner page says it is for the owner, not for staff', async () => {
+		const page = await (await get('/nursery/team', staff)).text();
+		expect(page).toContain("for the nursery's owner only");
+		expect(page).not.toContain('for nursery staff only');
+	});
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN, ...CATALOGUE_PAGES]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });
