@@ -8,7 +8,7 @@ import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type postgres from 'postgres';
 import { computePlan, cultivars as engineCultivars, defaultFeeding, findClimate, formatIsoDate, parseIsoDate, referenceClimateSlug, type Step } from '../src/lib/care';
-import { STAGE_OF } from '../src/lib/plan-text';
+import { STAGE_OF_STEP } from '../src/lib/care';
 
 /** Share of plants sold that a gardener has claimed (and so has a stored plan). */
 const CLAIMED_SHARE = 0.6;
@@ -142,7 +142,7 @@ function planSummary(ctx: ScaleContext, p: PlantFacts) {
 	const done = [...steps].reverse().find((s) => s.kind !== 'feeding' && p.plantedOn! + s.likely < from);
 	const stageStep = next ?? steps[steps.length - 1];
 	return {
-		stage: STAGE_OF[stageStep.kind as keyof typeof STAGE_OF],
+		stage: stageStep.kind === 'feeding' ? 'growing-leaves' : STAGE_OF_STEP[stageStep.kind as keyof typeof STAGE_OF_STEP],
 		nextOn: next ? formatIsoDate(p.plantedOn + next.likely) : null,
 		nextKind: next?.kind ?? null,
 		lastOn: done ? formatIsoDate(p.plantedOn + done.likely) : null,

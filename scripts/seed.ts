@@ -2,10 +2,12 @@
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { isMainModule } from './main-module.mjs';
+import { environmentOrExit } from '../src/lib/server/env.js';
 import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
 import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
+import { seedSales } from './seed-sales';
 
 export async function seedDemo(url: string): Promise<void> {
 	const client = postgres(url, { max: 1, onnotice: () => {} });
@@ -31,14 +33,14 @@ export async function seedDemo(url: string): Promise<void> {
 			.insert(users)
 			.values(DEMO_ACCOUNTS.map((a) => ({ ...a, role: a.role as 'owner' | 'staff' | 'gardener', passwordHash, emailVerifiedAt: now })))
 			.onConflictDoNothing({ target: users.email });
+		await seedSales(db);
 	} finally {
 		await client.end();
 	}
 }
 
 if (isMainModule(import.meta.url)) {
-	const url = process.env.DATABASE_URL;
-	if (!url) throw new Error('DATABASE_URL is not set');
+	const url = environmentOrExit().databaseUrl;
 	await seedDemo(url);
 	console.log('Demo scenario seeded');
 }

@@ -1,30 +1,33 @@
-// The reminder worker: a pg-boss consumer, safe to run as many copies as needed.
-// Reminders themselves arrive with the plant pages; for now it keeps the queue ready.
-import PgBoss from 'pg-boss';
+// The job worker: sends account e-mail (confirmation, reset, invitation) and reminder e-mail
+// (from the reminder table) through pg-boss. Safe to run as many copies as needed
+// (`npm run worker`; pg-boss hands each job to one worker); `npm start` runs one beside the app.
 import { isMainModule } from './main-module.mjs';
+import { environmentOrExit } from '../src/lib/server/env.js';
 
-export const REMINDER_QUEUE = 'reminders';
-
-export async function startWorker(url: string): Promise<PgBoss> {
-	const boss = new PgBoss({ connectionString: url, schema: 'pgboss' });
-	boss.on('error', (e) => console.error('[worker]', e.message));
-	await boss.start();
-	await boss.createQueue(REMINDER_QUEUE, { name: REMINDER_QUEUE, retryLimit: 5, retryBackoff: true, expireInSeconds: 300 });
-	await boss.work(REMINDER_QUEUE, async (jobs) => {
-		for (const job of jobs) console.log(`[worker] reminder job ${job.id}`);
-	});
-	return boss;
+export async function startWorker(): Promise<() => Promise<void>> {
+	// Imported here so the environment (DATABASE_URL, SMTP_PORT…) is read once it is final.
+	const { consume, QUEUES } = await import('../src/lib/server/jobs');
+	const { runAccountMailJob } = await import('../src/lib/server/accounts/mail');
+	const { startReminderWorker } = await import('../src/lib/server/reminders/worker');
+	const { closeDb } = await import('../src/lib/server/db');
+	// One job per fetch, so a failed send retries only its own message; four loops keep a burst of
+	// sign-ups from queueing the next person's link behind 0.5 s polls.
+	await consume(QUEUES.accountMail, runAccountMailJob, { workers: 4 });
+	const stop = await startReminderWorker();
+	return async () => {
+		await stop();
+		await closeDb();
+	};
 }
 
 if (isMainModule(import.meta.url)) {
-	const url = process.env.DATABASE_URL;
-	if (!url) throw new Error('DATABASE_URL is not set');
-	const boss = await startWorker(url);
-	console.log('Reminder worker waiting for jobs');
-	const stop = async () => {
-		await boss.stop({ graceful: true, timeout: 5000 });
+	environmentOrExit();
+	const stop = await startWorker();
+	console.log('Worker waiting for jobs (account e-mail, reminders)');
+	const onSignal = async () => {
+		await stop();
 		process.exit(0);
 	};
-	process.on('SIGINT', stop);
-	process.on('SIGTERM', stop);
+	process.on('SIGINT', onSignal);
+	process.on('SIGTERM', onSignal);
 }

@@ -5,9 +5,11 @@
  */
 import type { Component } from 'svelte';
 import { z } from 'zod';
+import { PLANT_STAGES, type PlantStage } from '$lib/care';
 
-export const GUIDE_STAGES = ['settling in', 'leafing up', 'mat forming', 'bunch filling', 'harvest window', 'cut-back'] as const;
-export type GuideStage = (typeof GUIDE_STAGES)[number];
+/** Guides are filed under the plant's stages, the same words the plans and the chart use. */
+export const GUIDE_STAGES = PLANT_STAGES.map((s) => s.id) as [PlantStage, ...PlantStage[]];
+export type GuideStage = PlantStage;
 
 export const guideFrontmatter = z
 	.object({

@@ -2,9 +2,9 @@
  * How a plan reads to people: dates, amounts, nutrients and stage colours. Shared by the
  * planner page, the plant page and the calendar feed so a step says the same thing everywhere.
  */
-import type { Amount, IsoDate, Nutrients, Step, StepKind } from '$lib/care';
+import { MONTH_ABBREVIATIONS as MONTHS, PLANT_STAGES, STAGE_OF_STEP, type Amount, type IsoDate, type Nutrients, type PlantStage, type Step } from '$lib/care';
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+export { generationLabel, generationName, PLANT_STAGES, stageLabel } from '$lib/care';
 
 /** "12 Mar 2027". Written out by hand because Intl would shift a calendar date by the viewer's time zone. */
 export function formatDay(iso: IsoDate): string {
@@ -34,33 +34,27 @@ export function formatNutrients(n: Nutrients): string {
 	return `N ${n.n} ${n.unit} · P ${n.p} ${n.unit} · K ${n.k} ${n.unit}`;
 }
 
-export function generationLabel(generation: number): string {
-	return generation === 0 ? 'Plant as sold' : generation === 1 ? 'First follower' : `Follower ${generation}`;
-}
-
-export type Stage = 'planting' | 'feeding' | 'mat' | 'flowering' | 'harvest' | 'clean-up';
-
-export const STAGE_OF: Readonly<Record<StepKind, Stage>> = {
-	planting: 'planting',
-	feeding: 'feeding',
-	followers: 'mat',
-	thinning: 'mat',
-	division: 'mat',
-	'flag-leaf': 'flowering',
-	shooting: 'flowering',
-	'bud-removal': 'flowering',
-	harvest: 'harvest',
-	ripening: 'harvest',
-	'cut-back': 'clean-up',
-	'stem-removal': 'clean-up'
+/** Palette colours (tailwind.config.ts) per plant stage; SVG needs the values, not class names. */
+export const STAGE_COLOURS: Readonly<Record<PlantStage, string>> = {
+	planted: '#2b5c28',
+	'growing-leaves': '#3f7f3a',
+	'followers-out': '#a88b74',
+	flowering: '#8e2f45',
+	ready: '#eabb3b',
+	'cut-back': '#4a3628',
+	'handed-on': '#6e5340',
+	lost: '#3f0f1d'
 };
 
-/** Palette colours (tailwind.config.ts) per stage; SVG needs the values, not class names. */
-export const STAGES: readonly { stage: Stage; label: string; colour: string }[] = [
-	{ stage: 'planting', label: 'Planting', colour: '#2b5c28' },
-	{ stage: 'feeding', label: 'Feeding', colour: '#8cc083' },
-	{ stage: 'mat', label: 'Followers and division', colour: '#a88b74' },
-	{ stage: 'flowering', label: 'Flag leaf and shooting', colour: '#8e2f45' },
-	{ stage: 'harvest', label: 'Harvest and ripening', colour: '#eabb3b' },
-	{ stage: 'clean-up', label: 'Cut-back and clean-up', colour: '#4a3628' }
-];
+/** Feeding runs through the whole life of the mat, so it has its own colour rather than a stage's. */
+export const FEEDING_COLOUR = '#8cc083';
+
+export function stepColour(step: Pick<Step, 'kind'>): string {
+	return step.kind === 'feeding' ? FEEDING_COLOUR : STAGE_COLOURS[STAGE_OF_STEP[step.kind]];
+}
+
+/** The stages a plan's steps fall in, in life order, for a chart legend. */
+export function stagesIn(steps: Pick<Step, 'kind'>[]): (typeof PLANT_STAGES)[number][] {
+	const present = new Set(steps.map((s) => (s.kind === 'feeding' ? undefined : STAGE_OF_STEP[s.kind])));
+	return PLANT_STAGES.filter((s) => present.has(s.id));
+}

@@ -11,7 +11,7 @@ export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
 export const ACCEPTED_IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic', 'image/heif'] as const;
 
 export const UPLOAD_LIMITS = {
-	/** Per file: a phone photo is 2–8 MB. The server's BODY_SIZE_LIMIT (11M, set by npm start and the tests) sits just above it. */
+	/** Per file: a phone photo is 2–8 MB. The server's BODY_SIZE_LIMIT (DEFAULTS.bodySizeLimit in src/lib/server/env.js, 11M) sits just above it. */
 	fileBytes: 10 * 1024 * 1024,
 	/** Per account, all stored sizes together. */
 	accountBytes: 200 * 1024 * 1024,

@@ -9,7 +9,8 @@ let counter = 0;
 /** A cultivar of the test's own, so its plants can be told apart from anything else in the database. */
 export async function testCultivar(name = 'Test Cultivar') {
 	const slug = `test-${process.pid}-${Date.now().toString(36)}-${++counter}`;
-	const [row] = await db.insert(cultivars).values({ slug, name, group: 'AAA', subgroup: 'Cavendish', size: 'medium', parameters: {} }).returning();
+	// Retired, so the public catalogue (which lists what is offered) never shows it.
+	const [row] = await db.insert(cultivars).values({ slug, name, group: 'AAA', subgroup: 'Cavendish', size: 'medium', parameters: {}, retiredAt: new Date() }).returning();
 	return row;
 }
 

@@ -7,6 +7,7 @@ import type { FeedingSettings, Step, Units } from './types';
 import { addMonths, formatIsoDate, monthOf, type EpochDay } from './dates';
 import { CAUTION, cautions } from './cautions';
 import { nitrogenRateKgPer100m2, nutrientsFor, elementalGrams, validateNpk } from './nutrients';
+import { feedingText, nitrogenCapCaution, restrictionCaution } from './wording';
 import { GRAMS_PER_POUND, GRAMS_PER_OUNCE, toUnits } from './units';
 
 export const defaultFeeding: FeedingSettings = {
@@ -18,8 +19,6 @@ export const defaultFeeding: FeedingSettings = {
 	handfulG: 100,
 	restrictedMonths: []
 };
-
-const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
 export interface Ration {
 	grams: number;
@@ -50,18 +49,14 @@ export function validateFeeding(settings: FeedingSettings): void {
 	}
 }
 
-function restrictionCaution(month: number): string {
-	return `Local rules restrict nitrogen and phosphorus fertilizer in ${MONTH_NAMES[month - 1]}: you may skip this feeding, or use only a product and amount the rule allows.`;
-}
-
 /** Warning when one application, spread over the mat's footprint, passes the local nitrogen cap. */
-function nitrogenCapCaution(grams: number, settings: FeedingSettings): string | undefined {
+function nitrogenCapWarning(grams: number, settings: FeedingSettings): string | undefined {
 	const cap = settings.nitrogenCapKgPer100m2;
 	const area = settings.matFootprintM2;
 	if (cap === undefined || area === undefined || !(area > 0)) return undefined;
 	const rate = nitrogenRateKgPer100m2(elementalGrams(grams, settings.npk).n, area);
 	if (rate <= cap) return undefined;
-	return `This feeding puts about ${rate.toFixed(2)} kg N per 100 m² on the mat's ${area} m², above the local cap of ${cap} kg N per 100 m² per application: spread it wider or split it, as the rule says.`;
+	return nitrogenCapCaution(rate, area, cap);
 }
 
 export interface FeedingWindow {
@@ -83,19 +78,16 @@ export function feedingSteps(first: FeedingWindow, horizonEnd: EpochDay, setting
 
 function feedingStep(index: number, window: FeedingWindow, settings: FeedingSettings, units: Units, guide: string): Step {
 	const ration = rationFor(index, settings, units);
-	const [n, p, k] = settings.npk;
+	const text = feedingText(index, ration.measure, settings.npk);
 	const month = monthOf(window.likely);
 	const restricted = settings.restrictedMonths.includes(month);
-	const extra = [restricted ? restrictionCaution(month) : undefined, nitrogenCapCaution(ration.grams, settings)].filter(
+	const extra = [restricted ? restrictionCaution(month) : undefined, nitrogenCapWarning(ration.grams, settings)].filter(
 		(c): c is string => c !== undefined
 	);
 	const step: Step = {
 		kind: 'feeding',
-		title: `Feed the mat: ${ration.measure}`,
-		detail:
-			`Scatter ${ration.measure} of ${n}-${p}-${k} fertilizer (high potassium) in a ring around the mat, ` +
-			'away from the stems, and water it in. The amount is for the whole mat, one to four plants, not for each plant. ' +
-			(index === 0 ? 'Start now that the plant has put out two new leaves.' : 'Repeat every month.'),
+		title: text.title,
+		detail: text.detail,
 		earliest: formatIsoDate(window.earliest),
 		likely: formatIsoDate(window.likely),
 		latest: formatIsoDate(window.latest),

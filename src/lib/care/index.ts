@@ -1,6 +1,9 @@
 /** Public surface of the care-plan engine. Pure TypeScript: no database, no framework. */
 export type * from './types';
 export { computePlan, KIND_ORDER, GUIDE_FOR, DEFAULT_GENERATIONS } from './plan';
+export { STEP_KINDS, UNITS, MONTH_NAMES, MONTH_ABBREVIATIONS, PLAN_BOUNDS, MONTHLY_MEAN_RANGE_TEXT } from './vocabulary';
+export { PLANT_STAGES, PLANT_STAGE_IDS, STAGE_OF_STEP, stageLabel, stageOn, generationLabel, generationName, type PlantStage } from './stages';
+export { PlanInputError, observedIssues, dateIssue, coolClimateIssue, BOUND_MESSAGES, MILESTONE_NAMES, type PlanInputIssue } from './validate';
 export {
 	cultivars,
 	findCultivar,
@@ -9,7 +12,14 @@ export {
 	climates,
 	findClimate,
 	referenceClimate,
-	referenceClimateSlug
+	referenceClimateSlug,
+	CULTIVAR_PARAMETER_BOUNDS,
+	CULTIVAR_PARAMETER_NAMES,
+	CULTIVAR_GROUPS,
+	SIZE_CLASSES,
+	FEEDING_SETTING_BOUNDS,
+	type CultivarParameterName,
+	type ParameterBound
 } from './catalogue';
 export { defaultFeeding, rationFor, canLabel } from './feeding';
 export { toUnits, GRAMS_PER_POUND, GRAMS_PER_OUNCE, METRES_PER_FOOT } from './units';

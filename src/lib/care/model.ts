@@ -9,16 +9,29 @@
 import type { Cultivar } from './types';
 import { referenceClimate } from './catalogue/climates';
 import { referenceCultivar } from './catalogue/cultivars';
-import { annualThermalTime } from './thermal';
+import { LEAF_RESPONSE, annualThermalTime, leafEmissionRate } from './thermal';
 
-/** Degree-days in a common year of the reference climate: the thermal length of "12 months". */
-export const REFERENCE_YEAR_DEGREE_DAYS = annualThermalTime(referenceClimate().monthlyMeanC);
+/**
+ * Leaf-clock degree-days (`leafEmissionRate`) in a common year of the reference climate: the
+ * thermal length of the trade's "12 months". Every month count below is on this clock; only
+ * bunch filling runs on the base-14 °C clock of its published thermal time.
+ */
+export const REFERENCE_YEAR_DEGREE_DAYS = annualThermalTime(referenceClimate().monthlyMeanC, leafEmissionRate);
 
 /** Thermal length of a reference-climate month: converts the trade's month counts to thermal time. */
 export const REFERENCE_MONTH_DEGREE_DAYS = REFERENCE_YEAR_DEGREE_DAYS / 12;
 
-/** Leaves per degree-day of the reference cultivar, chosen so it shoots at 12 months in the reference. */
-export const LEAVES_PER_DEGREE_DAY = referenceCultivar().leavesToShooting.value / REFERENCE_YEAR_DEGREE_DAYS;
+/**
+ * Months from planting (age 0) to shooting of the reference cultivar in the reference climate.
+ * The trade says "about 12 months" (common practice, no source); 11.7 is fitted inside that so
+ * the North Queensland coast, a little cooler than the reference, still shows its first bunch by
+ * about 12 months (Australian Bananas, "Growing"; docs/calibration.md) and Honolulu flowers within
+ * the 9–12 months CTAHR reports.
+ */
+export const REFERENCE_SHOOTING_MONTHS = 11.7;
+
+/** Leaves per degree-day of the reference cultivar, so it shoots at REFERENCE_SHOOTING_MONTHS in the reference. */
+export const LEAVES_PER_DEGREE_DAY = referenceCultivar().leavesToShooting.value / (REFERENCE_SHOOTING_MONTHS * REFERENCE_MONTH_DEGREE_DAYS);
 
 /** Followers show at about 6 months of age (common practice, no source). */
 export const FOLLOWERS_AGE_DEGREE_DAYS = 6 * REFERENCE_MONTH_DEGREE_DAYS;
@@ -34,12 +47,32 @@ export const BUD_REMOVAL_AFTER_SHOOTING_DEGREE_DAYS = (14 / 365) * REFERENCE_YEA
 
 /**
  * Published flowering-to-harvest thermal times describe the commercial (export) harvest grade.
- * A home grower waits until the fingers are plump and just colouring, later than that grade;
- * 1.35 makes the reference cultivar ready about 4 months after the flower in the reference
- * climate, averaged over the months it may flower in (common practice, no source; summer flowers
- * fill faster, autumn ones slower), and puts tropical lowland bunches at 85–110 days.
+ * A home grower waits until the fingers are plump and just colouring, later than that grade
+ * (common practice, no source). 1.45 is fitted to the anchors in docs/calibration.md: it puts
+ * Aboisso's bunches at 104–120 days (Lassoudière & Maubert 1971: about 108), Tenerife's at 4–7
+ * months and Pinellas' at 3–6 months whatever month they flower in. Tenerife's shortest (June
+ * flowers, 124 days against 122) and Pinellas' longest (October flowers, 178 days against 183)
+ * sit within days of their published bounds, so this factor has little room either way.
  */
-export const HOME_RIPENESS_FACTOR = 1.35;
+export const HOME_RIPENESS_FACTOR = 1.45;
+
+/**
+ * The temperature at which a published base-13.9 °C thermal time is carried over to the
+ * development clock: Umber et al. measured theirs in the warm tropics, where a day near 27 °C
+ * gives 13.1 °C·d above 13.9 °C. Keeping the duration at 27 °C and counting it on the
+ * development clock (base 9 °C) lets cool months fill a bunch at the pace the cool-subtropical
+ * anchors report, which a base of 14 °C does not (docs/calibration.md, "Bunch filling").
+ */
+export const FILL_CARRY_OVER_C = 27;
+const PUBLISHED_FILL_BASE_C = 13.9;
+
+/**
+ * A follower grows held back while its mother stands (shaded, and sharing the corm's food) and at
+ * the full rate once she is harvested or lost. 0.70 is fitted so the next bunch on a mat comes
+ * 8–10 months after the last on the North Queensland coast (Australian Bananas, "Growing") and
+ * 11–15 months in the Canary Islands, averaged over the planting months (docs/calibration.md).
+ */
+export const HELD_BACK_RATE = 0.7;
 
 /** Stem removal at ground level about 2 weeks after the cut-back (common practice, no source). */
 export const STEM_REMOVAL_AFTER_CUT_BACK_DAYS = 14;
@@ -55,7 +88,10 @@ export const WINDOW_SHARE_BASE = 0.06;
 export const WINDOW_SHARE_PER_GENERATION = 0.04;
 const WINDOW_SHARE_MAX = 0.5;
 
-/** Annual thermal time below which a banana cannot fruit within a human planning horizon. */
+/**
+ * Annual thermal time on the bunch-filling clock (base 14 °C) below which a banana cannot fruit
+ * within a human planning horizon: a bunch would take over two years to fill.
+ */
 export const MIN_ANNUAL_DEGREE_DAYS = 600;
 
 export function windowShare(generation: number): number {
@@ -81,5 +117,6 @@ export function leavesAtPlanting(cultivar: Cultivar, thermalAgeDegreeDays: numbe
 
 /** Flowering to the opening of the home-harvest window, degree-days. */
 export function shootingToHarvestDegreeDays(cultivar: Cultivar): number {
-	return cultivar.degreeDaysShootingToHarvest.value * HOME_RIPENESS_FACTOR;
+	const carryOver = (FILL_CARRY_OVER_C - LEAF_RESPONSE.baseC) / (FILL_CARRY_OVER_C - PUBLISHED_FILL_BASE_C);
+	return cultivar.degreeDaysShootingToHarvest.value * carryOver * HOME_RIPENESS_FACTOR;
 }

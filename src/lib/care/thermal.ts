@@ -42,6 +42,34 @@ export function bananaDevelopmentRate(meanC: number): number {
 	return (plateau * (r.ceilingC - meanC)) / (r.ceilingC - r.optimumHighC);
 }
 
+/**
+ * Leaf emission (the plant's development up to shooting) against the day's mean, °C → °C·d.
+ * Allen, Dettmann, Johns & Turner ("Estimation of leaf emergence rates of bananas", Aust. J.
+ * Agric. Res. 39:53, 1988; title from memory) fitted leaf emission of Cavendish to monthly means
+ * from about 13 °C, with its optimum near 28.5 °C; their coefficients are not reproduced here.
+ * Monthly means hide warm afternoons, so a month averaging 14–16 °C still moves a plant on: the
+ * response runs linearly from `baseC` to the optimum, holds to 33 °C (the plateau's upper end is
+ * the one `BANANA_RESPONSE` uses) and falls to nothing at 38 °C. `baseC` (9 °C) is fitted to the
+ * published anchors in docs/calibration.md, not taken from a source: at 10 °C an autumn planting
+ * at Alstonville flowers later than Turner's 1972 figure allows, and every half degree lower
+ * shortens Tenerife's later bunches towards the 11 months of the Canarian figure.
+ */
+export const LEAF_RESPONSE = {
+	baseC: 9,
+	optimumLowC: 28.5,
+	optimumHighC: 33,
+	ceilingC: 38
+} as const;
+
+export function leafEmissionRate(meanC: number): number {
+	const r = LEAF_RESPONSE;
+	if (!(meanC > r.baseC) || meanC >= r.ceilingC) return 0;
+	const plateau = r.optimumLowC - r.baseC;
+	if (meanC <= r.optimumLowC) return meanC - r.baseC;
+	if (meanC <= r.optimumHighC) return plateau;
+	return (plateau * (r.ceilingC - meanC)) / (r.ceilingC - r.optimumHighC);
+}
+
 /** A plain linear degree-day response above `baseC`, floored at 0. */
 export function linearResponse(baseC: number): DevelopmentResponse {
 	return (meanC) => Math.max(0, meanC - baseC);
@@ -195,21 +223,29 @@ export function annualThermalTime(monthlyMeanC: readonly number[], response: Dev
 }
 
 const CLOCK_CACHE_LIMIT = 256;
-const clockCache = new Map<string, ThermalClock>();
 
 /**
- * Cached banana clock per climate. The cache only saves work: a clock is a pure function of the
+ * A cache of clocks per climate. The cache only saves work: a clock is a pure function of the
  * 12 numbers, so evicting or keeping an entry never changes a plan.
  */
-export function thermalClockFor(monthlyMeanC: readonly number[]): ThermalClock {
-	const key = monthlyMeanC.join(',');
-	const cached = clockCache.get(key);
-	if (cached) return cached;
-	const clock = createThermalClock(monthlyMeanC);
-	if (clockCache.size >= CLOCK_CACHE_LIMIT) {
-		const oldest = clockCache.keys().next().value;
-		if (oldest !== undefined) clockCache.delete(oldest);
-	}
-	clockCache.set(key, clock);
-	return clock;
+function cachedClocks(response: DevelopmentResponse): (monthlyMeanC: readonly number[]) => ThermalClock {
+	const cache = new Map<string, ThermalClock>();
+	return (monthlyMeanC) => {
+		const key = monthlyMeanC.join(',');
+		const cached = cache.get(key);
+		if (cached) return cached;
+		const clock = createThermalClock(monthlyMeanC, response);
+		if (cache.size >= CLOCK_CACHE_LIMIT) {
+			const oldest = cache.keys().next().value;
+			if (oldest !== undefined) cache.delete(oldest);
+		}
+		cache.set(key, clock);
+		return clock;
+	};
 }
+
+/** The bunch-filling clock of a climate (base 14 °C, `bananaDevelopmentRate`). */
+export const thermalClockFor = cachedClocks(bananaDevelopmentRate);
+
+/** The leaf clock of a climate (`leafEmissionRate`): leaves, followers and shooting run on it. */
+export const leafClockFor = cachedClocks(leafEmissionRate);

@@ -1,3 +1,7 @@
+import type { StepKind, Units } from './vocabulary';
+
+export type { StepKind, Units };
+
 /**
  * Shared shapes of the care-plan engine. Pure data: no database, no SvelteKit.
  * Dates are ISO calendar dates (YYYY-MM-DD) in the garden's local calendar.
@@ -52,8 +56,6 @@ export interface ClimateProfile {
 	source: Provenance;
 }
 
-export type Units = 'metric' | 'imperial';
-
 export interface FeedingSettings {
 	/** N-P-K analysis as printed on the bag: % N, % P2O5, % K2O. */
 	npk: [number, number, number];
@@ -69,12 +71,23 @@ export interface FeedingSettings {
 	matFootprintM2?: number;
 }
 
+/**
+ * Milestones the gardener logged for one stem. Each replaces its forecast and re-times every
+ * step that depends on it.
+ */
 export interface Observed {
-	/** Leaves counted on the mother, with the day they were counted. */
+	/** Leaves counted on the stem, with the day they were counted. */
 	leafCount?: { on: IsoDate; leaves: number };
+	/** The day this stem's own suckers (the next generation) were first seen. */
 	followersOn?: IsoDate;
+	/** The short last leaf before the flower. */
+	flagLeafOn?: IsoDate;
 	shotOn?: IsoDate;
 	harvestedOn?: IsoDate;
+	cutBackOn?: IsoDate;
+	stemRemovedOn?: IsoDate;
+	/** The stem died or was removed early: its later steps are dropped; its follower takes over. */
+	lostOn?: IsoDate;
 }
 
 export interface PlanInput {
@@ -84,24 +97,13 @@ export interface PlanInput {
 	climate: { monthlyMeanC: number[] };
 	units?: Units;
 	feeding?: FeedingSettings;
+	/** Milestones of generation 0, the plant sold. */
 	observed?: Observed;
+	/** Milestones of the followers: index 0 is generation 1 (follower 1), and so on. */
+	observedFollowers?: Observed[];
 	/** How many generations to plan (mother = 0). At least 3. */
 	generations?: number;
 }
-
-export type StepKind =
-	| 'planting'
-	| 'feeding'
-	| 'followers'
-	| 'thinning'
-	| 'division'
-	| 'flag-leaf'
-	| 'shooting'
-	| 'bud-removal'
-	| 'harvest'
-	| 'ripening'
-	| 'cut-back'
-	| 'stem-removal';
 
 export interface Amount {
 	value: number;
@@ -141,4 +143,6 @@ export interface Step {
 
 export interface Plan {
 	steps: Step[];
+	/** Stems logged as lost, with the day; their later steps are left out of `steps`. */
+	lost?: { generation: number; on: IsoDate }[];
 }

@@ -2,8 +2,7 @@
  * What the plant row keeps of its stored plan for the nursery's table: the stage of the stem that
  * carries the mat, the next step due and the last milestone. Worked out once per regeneration.
  */
-import type { IsoDate, StepKind } from '$lib/care';
-import { STAGE_OF, type Stage } from '$lib/plan-text';
+import { STAGE_OF_STEP, type IsoDate, type PlantStage, type StepKind } from '$lib/care';
 import type { LoggedMilestone } from './milestones';
 import { currentGeneration } from './milestones';
 
@@ -15,7 +14,7 @@ interface DatedStep {
 }
 
 export interface PlantSummary {
-	stage: Stage;
+	stage: PlantStage;
 	nextStepOn: IsoDate | null;
 	nextStepKind: string | null;
 	lastMilestoneOn: IsoDate | null;
@@ -34,7 +33,8 @@ export function planSummary(steps: readonly DatedStep[], milestones: readonly Lo
 	const next = live.find((s) => s.likely >= today && !s.observed);
 	const last = [...milestones].sort((a, b) => (a.on < b.on ? -1 : a.on > b.on ? 1 : a.id - b.id)).at(-1);
 	return {
-		stage: current ? STAGE_OF[current.kind as StepKind] : 'planting',
+		// A feeding is work on the whole mat, begun once the plant grows leaves; before anything has begun it is just planted.
+		stage: !current ? 'planted' : current.kind === 'feeding' ? 'growing-leaves' : STAGE_OF_STEP[current.kind as Exclude<StepKind, 'feeding'>],
 		nextStepOn: next?.likely ?? null,
 		nextStepKind: next?.kind ?? null,
 		lastMilestoneOn: last?.on ?? null,

@@ -4,37 +4,37 @@
  * string (flat, so a planner URL can be shared, bookmarked and subscribed to).
  */
 import { z } from 'zod';
-import { model, parseIsoDate, thermalClockFor, type IsoDate, type Units } from '$lib/care';
+import {
+	BOUND_MESSAGES,
+	MONTHLY_MEAN_RANGE_TEXT,
+	PLAN_BOUNDS,
+	coolClimateIssue,
+	UNITS,
+	dateIssue,
+	observedIssues,
+	thermalClockFor,
+	type IsoDate,
+	type Observed,
+	type PlanInputIssue,
+	type Units
+} from '$lib/care';
 
-export const AGE_MAX_WEEKS = 104;
+export const AGE_MAX_WEEKS = PLAN_BOUNDS.ageAtPlantingWeeks.max;
 /** Monthly means outside this range are typing slips, not climates a banana could live in. */
-export const MEAN_MIN_C = -30;
-export const MEAN_MAX_C = 50;
-/** Years outside this range are typing slips too (e.g. 0226), and would make plans run off the calendar. */
-const YEAR_MIN = 1900;
-const YEAR_MAX = 2200;
+export const MEAN_MIN_C = PLAN_BOUNDS.monthlyMeanC.min;
+export const MEAN_MAX_C = PLAN_BOUNDS.monthlyMeanC.max;
 
 /** The query-string value that chooses the twelve monthly inputs instead of a catalogue climate. */
 export const CUSTOM_CLIMATE = 'custom';
 
-function isCalendarDate(value: string): boolean {
-	try {
-		parseIsoDate(value);
-		return true;
-	} catch {
-		return false;
-	}
-}
-
+/** A calendar date the engine accepts: the engine's own rule (format, real day, year bounds). */
 export const isoDateField = z
 	.string({ error: 'Enter a date as YYYY-MM-DD' })
 	.trim()
-	.regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Enter a date as YYYY-MM-DD', abort: true })
-	.refine(isCalendarDate, { error: 'No such date on the calendar', abort: true })
-	.refine((d) => {
-		const year = Number(d.slice(0, 4));
-		return year >= YEAR_MIN && year <= YEAR_MAX;
-	}, `Enter a year between ${YEAR_MIN} and ${YEAR_MAX}`);
+	.superRefine((value, ctx) => {
+		const message = dateIssue(value);
+		if (message) ctx.addIssue({ code: 'custom', message, abort: true });
+	});
 
 /**
  * Catalogue slugs: lowercase words joined by hyphens. Whether one exists is known only to the
@@ -56,34 +56,28 @@ export const cultivarField = slugField('Choose a cultivar', 'Unknown cultivar: c
 
 export const climateSlugField = slugField('Choose a climate', 'Unknown climate: choose one listed by GET /api/v1/climates, or give 12 monthly means');
 
-const ageMessage = `Enter a whole number of weeks from 0 to ${AGE_MAX_WEEKS}`;
+const ageMessage = BOUND_MESSAGES.ageAtPlantingWeeks;
 export const ageField = z
 	.number({ error: ageMessage })
 	.int(ageMessage)
-	.min(0, ageMessage)
+	.min(PLAN_BOUNDS.ageAtPlantingWeeks.min, ageMessage)
 	.max(AGE_MAX_WEEKS, ageMessage);
 
-/** A true minus sign reads better than a hyphen, and screen readers say "minus". */
-export const MEAN_RANGE_TEXT = `${String(MEAN_MIN_C).replace('-', '−')} to ${MEAN_MAX_C} °C`;
-const meanMessage = `Enter a temperature from ${MEAN_RANGE_TEXT}`;
+export const MEAN_RANGE_TEXT = MONTHLY_MEAN_RANGE_TEXT;
+const meanMessage = BOUND_MESSAGES.monthlyMeanC;
 export const monthlyMeansField = z
 	.array(z.number({ error: meanMessage }).min(MEAN_MIN_C, meanMessage).max(MEAN_MAX_C, meanMessage), {
 		error: 'Give 12 monthly mean temperatures, January first'
 	})
-	.length(12, 'Give exactly 12 monthly mean temperatures, January first')
+	.length(12, BOUND_MESSAGES.monthlyMeans)
 	.superRefine((means, ctx) => {
 		// Only a full, in-range year can be judged; the checks above already reported anything else.
 		if (means.length !== 12 || !means.every((t) => typeof t === 'number' && t >= MEAN_MIN_C && t <= MEAN_MAX_C)) return;
-		const perYear = thermalClockFor(means).commonYear;
-		if (perYear < model.MIN_ANNUAL_DEGREE_DAYS) {
-			ctx.addIssue({
-				code: 'custom',
-				message: `Too cool for a banana to fruit: these means give about ${Math.round(perYear)} °C·d a year, and at least ${model.MIN_ANNUAL_DEGREE_DAYS} are needed`
-			});
-		}
+		const message = coolClimateIssue(thermalClockFor(means).commonYear);
+		if (message) ctx.addIssue({ code: 'custom', message });
 	});
 
-export const unitsField = z.enum(['metric', 'imperial'], { error: 'Choose metric or imperial' });
+export const unitsField = z.enum(UNITS, { error: 'Choose metric or imperial' });
 
 /** The request once parsed, whichever spelling it came in. */
 export interface PlanRequest {
@@ -92,39 +86,39 @@ export interface PlanRequest {
 	ageAtPlantingWeeks: number;
 	climate: string | { monthlyMeanC: number[] };
 	units?: Units;
-	observed?: { shotOn?: IsoDate; harvestedOn?: IsoDate };
+	observed?: Observed;
+	observedFollowers?: Observed[];
 }
 
-type ObservedField = 'shotOn' | 'harvestedOn';
+const leavesMessage = BOUND_MESSAGES.leaves;
 
-/**
- * The one rule for logged milestones: nothing happens before planting, and a stem is
- * harvested only after it has shot. ISO dates compare correctly as strings.
- */
-function observationIssues(plantedOn: IsoDate, observed: PlanRequest['observed']): { field: ObservedField; message: string }[] {
-	const issues: { field: ObservedField; message: string }[] = [];
-	const { shotOn, harvestedOn } = observed ?? {};
-	if (shotOn && shotOn < plantedOn) issues.push({ field: 'shotOn', message: 'Shooting cannot come before planting' });
-	if (harvestedOn && harvestedOn < plantedOn) issues.push({ field: 'harvestedOn', message: 'Harvest cannot come before planting' });
-	else if (harvestedOn && shotOn && harvestedOn < shotOn) issues.push({ field: 'harvestedOn', message: 'Harvest cannot come before shooting' });
-	// A mother plant's whole life is well under this; later dates are typing errors, and would make a plan centuries long.
-	const latest = addYears(plantedOn, OBSERVED_WITHIN_YEARS);
-	for (const field of ['shotOn', 'harvestedOn'] as const) {
-		const day = observed?.[field];
-		if (day && day > latest) issues.push({ field, message: `Give a date within ${OBSERVED_WITHIN_YEARS} years of planting` });
-	}
-	return issues;
+/** Milestones logged for one stem (see the engine's Observed); the rules between dates are the engine's. */
+export const observedSchema = z
+	.object(
+		{
+			leafCount: z
+				.object(
+					{ on: isoDateField, leaves: z.number({ error: leavesMessage }).int(leavesMessage).min(PLAN_BOUNDS.leafCount.min, leavesMessage).max(PLAN_BOUNDS.leafCount.max, leavesMessage) },
+					{ error: 'A leaf count is an object with on and leaves' }
+				)
+				.strict()
+				.optional(),
+			followersOn: isoDateField.optional(),
+			flagLeafOn: isoDateField.optional(),
+			shotOn: isoDateField.optional(),
+			harvestedOn: isoDateField.optional(),
+			cutBackOn: isoDateField.optional(),
+			stemRemovedOn: isoDateField.optional(),
+			lostOn: isoDateField.optional()
+		},
+		{ error: 'Observed must be an object of logged milestones' }
+	)
+	.strict() satisfies z.ZodType<Observed>;
+
+/** The engine's rules between logged dates, reported at `pathOf(issue.path)`. */
+function addObservedIssues(ctx: z.RefinementCtx, issues: PlanInputIssue[], pathOf: (path: PlanInputIssue['path']) => PlanInputIssue['path'] = (p) => p) {
+	for (const issue of issues) ctx.addIssue({ code: 'custom', path: pathOf(issue.path), message: issue.message });
 }
-
-const OBSERVED_WITHIN_YEARS = 5;
-
-function addYears(iso: IsoDate, years: number): IsoDate {
-	return `${String(Number(iso.slice(0, 4)) + years).padStart(4, '0')}${iso.slice(4)}`;
-}
-
-const observedBody = z
-	.object({ shotOn: isoDateField.optional(), harvestedOn: isoDateField.optional() }, { error: 'Observed must be an object with shotOn and/or harvestedOn' })
-	.strict();
 
 /** POST /api/v1/plan-preview body. */
 export const planBodySchema = z
@@ -136,13 +130,13 @@ export const planBodySchema = z
 			error: 'Give a climate slug or an object with 12 monthlyMeanC values'
 		}),
 		units: unitsField.optional(),
-		observed: observedBody.optional()
+		observed: observedSchema.optional(),
+		observedFollowers: z
+			.array(observedSchema, { error: 'observedFollowers must be a list of logged milestones, follower 1 first' })
+			.max(PLAN_BOUNDS.generations.max - 1, `Log at most ${PLAN_BOUNDS.generations.max - 1} followers`)
+			.optional()
 	}, { error: 'The body must be a JSON object' })
-	.superRefine((body, ctx) => {
-		for (const issue of observationIssues(body.plantedOn, body.observed)) {
-			ctx.addIssue({ code: 'custom', path: ['observed', issue.field], message: issue.message });
-		}
-	}) satisfies z.ZodType<PlanRequest>;
+	.superRefine((body, ctx) => addObservedIssues(ctx, observedIssues(body.plantedOn, body.observed, body.observedFollowers))) satisfies z.ZodType<PlanRequest>;
 
 /** Empty query values mean "not given", so blank form inputs read as missing rather than as 0. */
 function blank(value: string | undefined): string | undefined {
@@ -200,11 +194,8 @@ export const planQuerySchema = z.preprocess(
 			shotOn: isoDateField.optional(),
 			harvestedOn: isoDateField.optional()
 		})
-		.superRefine((q, ctx) => {
-			for (const issue of observationIssues(q.plantedOn, q)) {
-				ctx.addIssue({ code: 'custom', path: [issue.field], message: issue.message });
-			}
-		})
+		// The query string is flat: ["observed", "shotOn"] is reported at "shotOn".
+		.superRefine((q, ctx) => addObservedIssues(ctx, observedIssues(q.plantedOn, { shotOn: q.shotOn, harvestedOn: q.harvestedOn }), (p) => p.slice(1)))
 		.transform(
 			(q): PlanRequest => ({
 				cultivar: q.cultivar,

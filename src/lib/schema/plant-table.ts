@@ -4,12 +4,12 @@
  * exported file always agree on what "these plants" means.
  */
 import { z } from 'zod';
-import { STAGES, type Stage } from '$lib/plan-text';
+import { PLANT_STAGES, type PlantStage } from '$lib/care';
 
 /** The engine's stage vocabulary (one source); the table filters on the stage kept on each plant row. */
-export const TABLE_STAGES = STAGES.map((s) => s.stage) as [Stage, ...Stage[]];
-export const STAGE_CHOICES: readonly { stage: Stage; label: string }[] = STAGES;
-export const stageLabel = (stage: string | null): string => STAGES.find((s) => s.stage === stage)?.label ?? 'Not planted yet';
+export const TABLE_STAGES = PLANT_STAGES.map((s) => s.id) as [PlantStage, ...PlantStage[]];
+export const STAGE_CHOICES: readonly { stage: PlantStage; label: string }[] = PLANT_STAGES.map((s) => ({ stage: s.id, label: s.label }));
+export const stageLabel = (stage: string | null): string => PLANT_STAGES.find((s) => s.id === stage)?.label ?? 'Not planted yet';
 
 /** Columns the table sorts by; each has an index (see plants in src/lib/server/db/schema). */
 export const PLANT_SORTS = ['nextStep', 'soldOn', 'age', 'lastMilestone'] as const;

@@ -133,18 +133,26 @@ export const claimCodeField = z.string().regex(CLAIM_CODE, 'This claim code is n
 export const CUSTOM_CLIMATE_CHOICE = 'custom';
 
 /** The claim form: planting date, the garden's climate (a profile or twelve means), units. */
-export const claimSchema = z
-	.object({
-		plantedOn: isoDateField,
-		climate: z.string({ error: 'Choose a climate' }).trim().min(1, 'Choose a climate').max(80, 'Choose a climate from the list'),
-		monthlyMeanC: z.preprocess((v) => (Array.isArray(v) ? v.map(numeric) : v), monthlyMeansField).optional(),
-		units: unitsField
-	})
-	.superRefine((c, ctx) => {
-		if (c.climate === CUSTOM_CLIMATE_CHOICE && !c.monthlyMeanC) {
-			ctx.addIssue({ code: 'custom', path: ['monthlyMeanC'], message: 'Give 12 monthly mean temperatures, January first' });
-		}
-	});
+export const claimSchema = z.preprocess(
+	// The form always sends the twelve month inputs; they count only for "my own monthly means".
+	(raw) => {
+		if (!raw || typeof raw !== 'object') return raw;
+		const { monthlyMeanC, ...rest } = raw as Record<string, unknown>;
+		return rest.climate === CUSTOM_CLIMATE_CHOICE ? { ...rest, monthlyMeanC: Array.isArray(monthlyMeanC) ? monthlyMeanC.map(numeric) : monthlyMeanC } : rest;
+	},
+	z
+		.object({
+			plantedOn: isoDateField,
+			climate: z.string({ error: 'Choose a climate' }).trim().min(1, 'Choose a climate').max(80, 'Choose a climate from the list'),
+			monthlyMeanC: monthlyMeansField.optional(),
+			units: unitsField
+		})
+		.superRefine((c, ctx) => {
+			if (c.climate === CUSTOM_CLIMATE_CHOICE && !c.monthlyMeanC) {
+				ctx.addIssue({ code: 'custom', path: ['monthlyMeanC'], message: 'Give 12 monthly mean temperatures, January first' });
+			}
+		})
+);
 export type ClaimInput = z.infer<typeof claimSchema>;
 
 export const waitlistSchema = z.object({ cultivar: slugField, email: emailField });

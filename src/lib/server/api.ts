@@ -5,6 +5,7 @@
  */
 import { isHttpError, json, type RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { PlanInputError } from '$lib/care';
 import { UserFacingError } from './errors';
 
 export interface ApiIssue {
@@ -66,6 +67,8 @@ export function apiRoute(handler: RequestHandler): RequestHandler {
 			return await handler(event);
 		} catch (e) {
 			if (e instanceof ApiInputError) return apiError(e.message, e.issues);
+			// The engine's own refusal, should a schema let one through: still the client's fault.
+			if (e instanceof PlanInputError) return apiError('The request has invalid fields', e.issues);
 			if (e instanceof UserFacingError) return apiError(e.message, [{ path: e.field ? e.field.split('.') : [], message: e.message }], e.status);
 			// The guard's 401 and 403 in the same shape as every other refusal.
 			if (isHttpError(e)) return apiError(e.body.message, [], e.status);

@@ -7,10 +7,15 @@
 const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 const COOKIELESS_ROUTES = new Set(['/api/v1/plan-preview', '/api/v1/plan-preview.ics', '/api/v1/cultivars', '/api/v1/climates']);
+/**
+ * One-click unsubscribe (RFC 8058): mail providers POST from their own servers, with no Origin and
+ * no cookies; the token in the path is the only credential and the only effect is fewer e-mails.
+ */
+const COOKIELESS_PREFIXES = ['/unsubscribe/'];
 
 export function isForbiddenCrossSiteForm(request: Request, url: URL): boolean {
 	if (!UNSAFE.has(request.method)) return false;
-	if (COOKIELESS_ROUTES.has(url.pathname)) return false;
+	if (COOKIELESS_ROUTES.has(url.pathname) || COOKIELESS_PREFIXES.some((p) => url.pathname.startsWith(p))) return false;
 	const type = (request.headers.get('content-type') ?? '').split(';', 1)[0].trim().toLowerCase();
 	if (!FORM_TYPES.includes(type)) return false;
 	return request.headers.get('origin') !== url.origin;

@@ -1,14 +1,15 @@
 import QRCode from 'qrcode';
-import { feedIdSchema, feedScopeFormSchema } from '$lib/schema/delivery';
+import { feedIdSchema, feedScopeFormSchema, reminderSettingsSchema } from '$lib/schema/delivery';
 import { requireUser } from '$lib/server/auth';
 import { feeds } from '$lib/server/feeds/service';
 import { runForm } from '$lib/server/forms';
+import { reminderService } from '$lib/server/reminders/service';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
-	const [feedList, plants] = await Promise.all([feeds.list(user.id), feeds.plantChoices(user.id)]);
-	return { feeds: feedList, plants };
+	const [feedList, plants, choices] = await Promise.all([feeds.list(user.id), feeds.plantChoices(user.id), reminderService.choices(user.id)]);
+	return { feeds: feedList, plants, reminders: { ...choices, units: user.units }, timeZones: TIME_ZONES };
 };
 
 /** The new address, shown once, with a QR code of its webcal:// form. */
@@ -19,7 +20,15 @@ async function shown(feed: { https: string; webcal: string }, scope: string) {
 const scopeLabel = (plants: { id: number; label: string }[], plantId: number | null) =>
 	plantId === null ? 'all your plants' : (plants.find((p) => p.id === plantId)?.label ?? 'this plant');
 
+/** Every IANA zone this runtime knows, for the time zone picker (UTC first). */
+const TIME_ZONES = ['UTC', ...Intl.supportedValuesOf('timeZone').filter((z) => z !== 'UTC')];
+
 export const actions: Actions = {
+	saveReminders: async (event) => {
+		const user = requireUser(event);
+		const { failure } = await runForm(event.request, reminderSettingsSchema, (input) => reminderService.save(user.id, input));
+		return failure ?? { saved: true };
+	},
 	createFeed: async (event) => {
 		const user = requireUser(event);
 		const { failure, result } = await runForm(event.request, feedScopeFormSchema, async ({ scope }) => {

@@ -2,6 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { verifySchema } from '$lib/schema/auth';
 import { accounts } from '$lib/server/accounts/service';
 import { runForm } from '$lib/server/forms';
+import { safeNext } from '$lib/nav';
 import type { Actions, PageServerLoad } from './$types';
 
 // Public: the e-mailed link lands here. Confirming takes a click (a POST), so link scanners
@@ -10,9 +11,10 @@ export const load: PageServerLoad = ({ url }) => ({ token: url.searchParams.get(
 
 export const actions: Actions = {
 	// Public: the token is the credential.
-	default: async ({ request }) => {
+	default: async ({ request, url }) => {
 		const { failure } = await runForm(request, verifySchema, (d) => accounts.verifyEmail(d.token));
 		if (failure) return failure;
-		redirect(303, '/login?verified=1');
+		const next = safeNext(url.searchParams.get('next'), '');
+		redirect(303, `/login?verified=1${next ? `&next=${encodeURIComponent(next)}` : ''}`);
 	}
 };

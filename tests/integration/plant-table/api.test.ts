@@ -40,11 +40,11 @@ beforeAll(async () => {
 	[cultivar, other] = await Promise.all([testCultivar('Table Test Nain'), testCultivar('Other Test Lady')]);
 	marketId = (await testMarketDay('2026-03-07')).id;
 	const rows = await insertPlants([
-		{ cultivarId: cultivar.id, soldOn: '2026-03-07', marketDayId: marketId, gardenerId: gardener.id, stage: 'feeding', nextStepOn: '2020-01-10', nextStepKind: 'feeding', ageAtSaleWeeks: 10 },
+		{ cultivarId: cultivar.id, soldOn: '2026-03-07', marketDayId: marketId, gardenerId: gardener.id, stage: 'growing-leaves', nextStepOn: '2020-01-10', nextStepKind: 'feeding', ageAtSaleWeeks: 10 },
 		{ cultivarId: cultivar.id, soldOn: '2026-03-07', marketDayId: marketId, gardenerId: otherGardener.id, stage: 'flowering', nextStepOn: '2099-02-01', nextStepKind: 'bud-removal', lastMilestoneOn: '2026-09-01', lastMilestoneKind: 'shooting', ageAtSaleWeeks: 30 },
-		{ cultivarId: cultivar.id, soldOn: '2026-02-01', gardenerId: gardener.id, stage: 'feeding', nextStepOn: '2099-01-01', nextStepKind: 'feeding', ageAtSaleWeeks: 20 },
+		{ cultivarId: cultivar.id, soldOn: '2026-02-01', gardenerId: gardener.id, stage: 'growing-leaves', nextStepOn: '2099-01-01', nextStepKind: 'feeding', ageAtSaleWeeks: 20 },
 		{ cultivarId: cultivar.id, soldOn: '2026-01-15', ageAtSaleWeeks: 8 },
-		{ cultivarId: other.id, soldOn: '2026-03-07', marketDayId: marketId, gardenerId: gardener.id, stage: 'feeding', nextStepOn: '2099-03-01', nextStepKind: 'feeding' }
+		{ cultivarId: other.id, soldOn: '2026-03-07', marketDayId: marketId, gardenerId: gardener.id, stage: 'growing-leaves', nextStepOn: '2099-03-01', nextStepKind: 'feeding' }
 	]);
 	ids = { overdue: rows[0].id, flowering: rows[1].id, later: rows[2].id, unclaimed: rows[3].id, otherCultivar: rows[4].id };
 });
@@ -56,7 +56,7 @@ describe('GET /api/v1/plants for staff', () => {
 		const body = await list(`cultivar=${cultivar.slug}`, staff);
 		expect(idsOf(body)).toEqual([ids.overdue, ids.later, ids.flowering, ids.unclaimed]);
 		expect(body).toMatchObject({ total: 4, totalExact: true, page: 1, perPage: 25, pages: 1 });
-		expect(body.plants[1]).toMatchObject({ href: `/plants/${ids.later}`, cultivar: { slug: cultivar.slug, name: 'Table Test Nain' }, claimed: true, gardener: 'Pim Tester', stage: 'feeding' });
+		expect(body.plants[1]).toMatchObject({ href: `/plants/${ids.later}`, cultivar: { slug: cultivar.slug, name: 'Table Test Nain' }, claimed: true, gardener: 'Pim Tester', stage: 'growing-leaves' });
 		expect(body.plants[3]).toMatchObject({ claimed: false, gardener: null, nextStep: null, marketDay: null });
 	});
 

@@ -67,11 +67,11 @@ describe(`the table's plans on ${PLANTS.toLocaleString('en')} plants`, () => {
 
 	const cases: [string, () => PlanNode[] | Promise<PlanNode[]>, string][] = [
 		['first page: next step, earliest first', () => planOf(page({}, {})), 'plants_next_step_idx'],
-		['filtered page: cultivar and stage', () => planOf(page({ cultivarId: grandNain, stage: 'feeding' }, { cultivar: 'grand-nain', stage: 'feeding' })), 'plants_cultivar_stage_idx'],
+		['filtered page: cultivar and stage', () => planOf(page({ cultivarId: grandNain, stage: 'growing-leaves' }, { cultivar: 'grand-nain', stage: 'growing-leaves' })), 'plants_cultivar_stage_idx'],
 		['sorted page: oldest first', () => planOf(page({}, { sort: 'age', order: 'desc' })), 'plants_started_idx'],
 		['sorted page: latest sale first', () => planOf(page({}, { sort: 'soldOn', order: 'desc' })), 'plants_sold_on_idx'],
 		['sorted page: last milestone', () => planOf(page({}, { sort: 'lastMilestone' })), 'plants_last_milestone_idx'],
-		['count of a cultivar and stage', () => planOf(plantTableQueries.countUpTo({ cultivarId: grandNain, stage: 'feeding' }, 10_001)), 'plants_cultivar_stage_idx']
+		['count of a cultivar and stage', () => planOf(plantTableQueries.countUpTo({ cultivarId: grandNain, stage: 'growing-leaves' }, 10_001)), 'plants_cultivar_stage_idx']
 	];
 	for (const [label, plan, index] of cases) {
 		it(`${label}: reads plants through ${index}, no sequential scan`, async () => {
@@ -81,8 +81,4 @@ describe(`the table's plans on ${PLANTS.toLocaleString('en')} plants`, () => {
 		});
 	}
 
-	it('the unfiltered count stops at the cap and reads an index only', async () => {
-		const access = plantsAccess(await planOf(plantTableQueries.countUpTo({}, 10_001)));
-		expect(access.types).toEqual(['Index Only Scan']);
-	});
 });

@@ -124,6 +124,9 @@ describe('plan invariants (fast-check)', () => {
 				for (const [k, w] of warm) {
 					const c = cold.get(k);
 					if (!c) continue;
+					// Counted back from a logged flower, the flag leaf comes one leaf interval before it,
+					// and a colder garden's leaf interval is longer: that step may only move earlier.
+					if (k === 'flag-leaf/0/0' && inp.observed?.shotOn) continue;
 					expect(c.earliest >= w.earliest, `${k} earliest`).toBe(true);
 					expect(c.likely >= w.likely, `${k} likely`).toBe(true);
 					expect(c.latest >= w.latest, `${k} latest`).toBe(true);

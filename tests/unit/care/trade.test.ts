@@ -63,18 +63,23 @@ describe('reference climate, common practice, no source', () => {
 	});
 });
 
-describe('flower to harvest in other climates (literature band: 85–110 d in the tropics, up to about 210 d in cool subtropics; from memory)', () => {
+describe('flower to harvest in other climates (Lassoudière & Maubert, Fruits 26:321, 1971: Poyo harvested about 108 days after bunch emergence at Aboisso; up to about 210 d in cool subtropics, from memory)', () => {
 	const spanFor = (climateSlug: string, shotOn: string, cultivarSlug = 'grand-nain') => {
 		const p = computePlan(input({ climateSlug, cultivarSlug, plantedOn: '2025-01-01', observed: { shotOn } }));
 		return days(shotOn, only(p, 'harvest').likely);
 	};
 	const flowering = Array.from({ length: 12 }, (_, i) => `2026-${String(i + 1).padStart(2, '0')}-15`);
-	it('humid tropical lowland: 85–110 days whatever the flowering month, for every cultivar', () => {
+	// 108 days widened by 15 % (92–124) for the Cavendish subgroup the figure was measured on; the
+	// other cultivars' recalled thermal times spread about 7 % either side of Cavendish, so they
+	// are held to 85 days (the lower end of the tropical band recalled before the published figure)
+	// up to the same 124.
+	it('humid tropical lowland: Cavendish 92–124 days whatever the flowering month; every cultivar 85–124', () => {
 		for (const cv of cultivars) {
+			const [low, high] = cv.subgroup === 'Cavendish' ? [92, 124] : [85, 124];
 			for (const shotOn of flowering) {
 				const d = spanFor('humid-tropical-lowland', shotOn, cv.slug);
-				expect(d, `${cv.slug} shot ${shotOn}`).toBeGreaterThanOrEqual(85);
-				expect(d, `${cv.slug} shot ${shotOn}`).toBeLessThanOrEqual(110);
+				expect(d, `${cv.slug} shot ${shotOn}`).toBeGreaterThanOrEqual(low);
+				expect(d, `${cv.slug} shot ${shotOn}`).toBeLessThanOrEqual(high);
 			}
 		}
 	});

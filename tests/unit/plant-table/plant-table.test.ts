@@ -36,12 +36,12 @@ describe('the table query', () => {
 		expect(parsePlantTableQuery(new URLSearchParams(`page=${TABLE_ROW_LIMIT / 100 + 1}&perPage=100`)).success).toBe(false);
 	});
 	it('writes the shortest URL for a view, defaults left out, and it parses back', () => {
-		const search = plantTableSearch({ perPage: '25', sort: 'nextStep', page: 3, stage: 'feeding', cultivar: 'grand-nain', overdue: '' });
-		expect(search).toBe('?cultivar=grand-nain&stage=feeding&page=3');
+		const search = plantTableSearch({ perPage: '25', sort: 'nextStep', page: 3, stage: 'growing-leaves', cultivar: 'grand-nain', overdue: '' });
+		expect(search).toBe('?cultivar=grand-nain&stage=growing-leaves&page=3');
 		const r = parsePlantTableQuery(new URLSearchParams(search));
-		expect(r.success && r.data).toMatchObject({ cultivar: 'grand-nain', stage: 'feeding', page: 3 });
+		expect(r.success && r.data).toMatchObject({ cultivar: 'grand-nain', stage: 'growing-leaves', page: 3 });
 		expect(plantTableSearch({})).toBe('');
-		expect(exportSearch({ stage: 'feeding', page: 3, perPage: 50, order: 'desc' })).toBe('?stage=feeding&order=desc');
+		expect(exportSearch({ stage: 'growing-leaves', page: 3, perPage: 50, order: 'desc' })).toBe('?stage=growing-leaves&order=desc');
 	});
 });
 

@@ -53,11 +53,11 @@ describe('the plant row’s summary', () => {
 	it('after the harvest it follows the follower', () => {
 		const s = planSummary(steps, [m('harvest', '2027-05-01')], '2027-06-01');
 		expect(s.nextStepKind).toBe('shooting');
-		expect(s.stage).toBe('feeding');
+		expect(s.stage).toBe('growing-leaves');
 	});
 
-	it('before planting the stage is planting', () => {
-		expect(planSummary(steps, [], '2026-01-01').stage).toBe('planting');
+	it('before planting the stage is just planted', () => {
+		expect(planSummary(steps, [], '2026-01-01').stage).toBe('planted');
 	});
 });
 

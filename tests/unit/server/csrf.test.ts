@@ -29,4 +29,9 @@ describe('cross-site form check (OWASP CSRF Prevention Cheat Sheet: verify the O
 		}
 		expect(isForbiddenCrossSiteForm(req('DELETE', 'text/plain', 'http://evil.example'), url('/api/v1/sales/1'))).toBe(true);
 	});
+	it('lets a mail provider\'s one-click unsubscribe (RFC 8058) through: no Origin, no cookies, only the token in the path', () => {
+		expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', null), url('/unsubscribe/abc'))).toBe(false);
+		expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', 'http://evil.example'), url('/settings'))).toBe(true);
+		expect(isForbiddenCrossSiteForm(req('POST', 'application/x-www-form-urlencoded', 'http://evil.example'), url('/api/v1/feeds'))).toBe(true);
+	});
 });

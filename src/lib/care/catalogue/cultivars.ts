@@ -2,8 +2,9 @@
  * Cultivar parameters. Most values are recalled and marked `from-memory`; the leaf count of the
  * reference cultivar is the trade's rule of thumb (`common practice, no source`), and the Grand
  * Nain flowering-to-harvest thermal time is published. The recalled flowering-to-harvest thermal
- * times are kept within 900–1035 °C·d, the span that keeps every cultivar inside the 85–110 days
- * reported for tropical lowlands (tests/unit/care/trade.test.ts checks it for all of them).
+ * times are kept within 900–1035 °C·d, about 7 % either side of Cavendish, so every cultivar stays
+ * within 85–124 days in the humid tropics, around the 108 days Lassoudière & Maubert (1971)
+ * report for Cavendish (tests/unit/care/trade.test.ts checks it for all of them).
  */
 import type { Cultivar, CultivarGroup, Provenance, SizeClass, Sourced } from '../types';
 

@@ -20,6 +20,7 @@ import { todayIso } from '../plan-preview';
 import { UserFacingError } from '../errors';
 import type { Tx } from '../db/tx';
 import { plansRepository, type PlantRow } from './repository';
+import { reminderService } from '../reminders/service';
 
 export interface RegenerationDeps {
 	repo: typeof plansRepository;
@@ -27,6 +28,8 @@ export interface RegenerationDeps {
 	climateById: (id: number) => Promise<{ climate: { monthlyMeanC: number[] } } | undefined>;
 	planningContext: () => Promise<{ feeding: FeedingSettings; timeZone: string }>;
 	now: () => Date;
+	/** Runs in the same transaction once the steps are written: reminders follow the new plan. */
+	afterChange?: (tx: Tx, plantId: number) => Promise<void>;
 }
 
 export interface Regeneration {
@@ -100,6 +103,7 @@ export function createPlanRegenerator(deps: RegenerationDeps) {
 		const anything = diff.changed.length + diff.added.length + diff.removed.length > 0;
 		const summary = planSummary(plan.steps, logged, todayIso(now, context.timeZone));
 		await deps.repo.updateSummary(tx, plantId, summary, anything ? now : undefined);
+		await deps.afterChange?.(tx, plantId);
 		return { moved: diff.moved, added: diff.added.length, removed: diff.removed.length, changed: diff.changed.length, summary };
 	};
 }
@@ -113,5 +117,7 @@ export const regeneratePlan = createPlanRegenerator({
 	cultivarById: catalogueService.cultivarById,
 	climateById: catalogueService.climateById,
 	planningContext: nurseryService.planningContext,
-	now: () => new Date()
+	now: () => new Date(),
+	// Unsent reminders move with their steps; a sent one is never sent again (src/lib/reminders/schedule.ts).
+	afterChange: (tx, plantId) => reminderService.syncPlant(tx, plantId)
 });

@@ -1,5 +1,5 @@
 /** Plant queries for the lists, the API and claiming. Queries only. */
-import { and, eq, isNull, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNull, sql, type SQL } from 'drizzle-orm';
 import { climateProfiles, cultivars, plants, sales, users } from '../db/schema';
 import type { AnyDb } from '../secrets';
 
@@ -49,6 +49,13 @@ export function plantFilters(scope: PlantScope): SQL[] {
 export function plantsRepository(db: AnyDb) {
 	const base = () => listQuery(db);
 	return {
+		page: (where: SQL[], limit: number, offset: number) =>
+			base()
+				.where(and(...where))
+				.orderBy(sql`${plants.plantedOn} desc nulls last`, desc(plants.soldOn), asc(plants.id))
+				.limit(limit)
+				.offset(offset),
+		count: async (where: SQL[]) => (await db.select({ n: count() }).from(plants).where(and(...where)))[0].n,
 		one: async (where: SQL[]) => (await base().where(and(...where)))[0],
 		/** A plant by its claim code's hash, with what the claim page shows. */
 		byClaimHash: async (hash: string) =>

@@ -70,6 +70,19 @@ export function createPlantsService({ db, cultivarById, feeding }: PlantsDeps) {
 	}
 
 	return {
+		/**
+		 * A page of plants in a scope with their status, for "My plants". The nursery's table and
+		 * the API list through the plant table's service instead (filters, sort, stored stages).
+		 */
+		async page(scope: PlantScope, query: { page: number; size: number }, today: string) {
+			const where = plantFilters(scope);
+			const total = await repo.count(where);
+			// A page past the end shows the last page rather than an empty list.
+			const page = Math.min(query.page, Math.max(1, Math.ceil(total / query.size)));
+			const rows = await repo.page(where, query.size, (page - 1) * query.size);
+			return { plants: await views(rows, scope, today), total, page, size: query.size };
+		},
+
 		/** One plant in a scope; 404 when it is missing or belongs to someone else. */
 		async one(scope: PlantScope, id: number, today: string): Promise<PlantView> {
 			const row = await repo.one([...plantFilters(scope), eq(plants.id, id)]);

@@ -3,7 +3,7 @@
  * and the API. Today it reads the plan the engine computes from the plant's inputs; stored plans
  * (plan_steps) can replace the computation here without any caller changing.
  */
-import { computePlan, type Cultivar, type FeedingSettings, type IsoDate, type Plan, type Step, type StepKind } from '../../care';
+import { computePlan, stageLabel, stageOn, type Cultivar, type FeedingSettings, type IsoDate, type Plan, type StepKind } from '../../care';
 
 export interface PlantInputs {
 	cultivar: Cultivar;
@@ -20,26 +20,10 @@ export interface PlantStatus {
 	nextStep: { kind: StepKind; title: string; on: IsoDate; generation: number } | null;
 }
 
-/** Stage of the plant as sold, from the last kind of step it has passed (most recent wins). */
-const STAGE_AFTER: readonly [StepKind, string, string][] = [
-	['planting', 'planted', 'Just planted'],
-	['feeding', 'growing-leaves', 'Growing leaves'],
-	['followers', 'followers-out', 'Followers out'],
-	['flag-leaf', 'flowering', 'Flowering and bunch filling'],
-	['harvest', 'ready', 'Ready to harvest'],
-	['cut-back', 'cut-back', 'Cut back'],
-	['stem-removal', 'handed-on', 'Handed on to its follower']
-];
-
+/** The plant as sold: its stage in the engine's words (`stageOn`), and its next step. */
 export function statusFromPlan(plan: Plan, today: IsoDate): PlantStatus {
-	const own = plan.steps.filter((s) => s.generation === 0);
-	const firstOf = (kind: StepKind): Step | undefined => (kind === 'feeding' ? plan.steps : own).find((s) => s.kind === kind);
-	let stage: PlantStatus['stage'] = null;
-	for (const [kind, id, label] of STAGE_AFTER) {
-		const s = firstOf(kind);
-		const start = kind === 'harvest' ? s?.earliest : s?.likely;
-		if (start !== undefined && start <= today) stage = { id, label };
-	}
+	const id = stageOn(plan, today);
+	const stage: PlantStatus['stage'] = id === null ? null : { id, label: stageLabel(id) };
 	const next = plan.steps.find((s) => s.likely >= today);
 	return { stage, nextStep: next ? { kind: next.kind, title: next.title, on: next.likely, generation: next.generation } : null };
 }

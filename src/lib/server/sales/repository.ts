@@ -40,7 +40,7 @@ export function salesRepository(db: AnyDb) {
 			db.update(plants).set({ claimCodeHash, claimVersion }).where(eq(plants.id, plantId)),
 		plantsOfSale: (saleId: number) =>
 			db
-				.select({ id: plants.id, claimVersion: plants.claimVersion, claimedAt: plants.claimedAt })
+				.select({ id: plants.id, claimVersion: plants.claimVersion, claimedAt: plants.claimedAt, ageAtSaleWeeks: plants.ageAtSaleWeeks })
 				.from(plants)
 				.where(eq(plants.saleId, saleId))
 				.orderBy(asc(plants.id)),

@@ -34,6 +34,7 @@ export interface SalesDeps {
 export interface PlantLink {
 	id: number;
 	claimed: boolean;
+	ageAtSaleWeeks: number;
 	claimLink: string;
 }
 
@@ -48,6 +49,7 @@ export interface SaleView {
 	pricePerPlant: number;
 	buyerEmail: string | null;
 	undone: boolean;
+	recordedAt: string;
 	/** Until when DELETE /api/v1/sales/[id] (undo) is accepted. */
 	undoableUntil: string;
 }
@@ -66,6 +68,7 @@ export function saleView(s: SaleRow): SaleView {
 		pricePerPlant: fromCents(s.pricePerPlantCents),
 		buyerEmail: s.buyerEmail,
 		undone: s.undoneAt !== null,
+		recordedAt: s.createdAt.toISOString(),
 		undoableUntil: new Date(s.createdAt.getTime() + UNDO_MS).toISOString()
 	};
 }
@@ -83,13 +86,26 @@ export function claimMail(sale: Pick<SaleView, 'cultivar' | 'soldOn' | 'quantity
 	};
 }
 
+/**
+ * The plants of a sale, unclaimed, each with its own claim code: the one rule for creating sold
+ * plants, used by the stall and by the import of past sales. Runs inside the caller's transaction.
+ */
+export async function insertSoldPlants(db: AnyDb, secret: string, sale: { saleId: number; cultivarId: number; soldOn: string; ageAtSaleWeeks: number; quantity: number }) {
+	const sr = salesRepository(db);
+	const rows = await sr.insertPlants(
+		Array.from({ length: sale.quantity }, () => ({ saleId: sale.saleId, cultivarId: sale.cultivarId, soldOn: sale.soldOn, ageAtSaleWeeks: sale.ageAtSaleWeeks }))
+	);
+	for (const p of rows) await sr.setClaimHash(p.id, claimCodeHash(claimCode(secret, p.id, p.claimVersion)), p.claimVersion);
+	return rows;
+}
+
 export function createSalesService(deps: SalesDeps) {
 	const { db } = deps;
 	const repo = salesRepository(db);
 
 	async function links(saleId: number): Promise<PlantLink[]> {
 		const secret = await deps.secret();
-		return (await repo.plantsOfSale(saleId)).map((p) => ({ id: p.id, claimed: p.claimedAt !== null, claimLink: deps.link(claimPath(claimCode(secret, p.id, p.claimVersion))) }));
+		return (await repo.plantsOfSale(saleId)).map((p) => ({ id: p.id, claimed: p.claimedAt !== null, ageAtSaleWeeks: p.ageAtSaleWeeks, claimLink: deps.link(claimPath(claimCode(secret, p.id, p.claimVersion))) }));
 	}
 
 	async function mailLinks(sale: SaleView, plants: PlantLink[], to: string): Promise<boolean> {
@@ -129,8 +145,7 @@ export function createSalesService(deps: SalesDeps) {
 				}
 				await st.recordMovement({ batchId: batch.id, change: -input.quantity, kind: 'sold', reason: `sale ${inserted.id}`, userId: sellerId });
 				const ageAtSaleWeeks = Math.min(AGE_MAX_WEEKS, Math.max(0, ageInWeeks(batch.pottedOn, soldOn)));
-				const rows = await sr.insertPlants(Array.from({ length: input.quantity }, () => ({ saleId: inserted.id, cultivarId: batch.cultivarId, soldOn, ageAtSaleWeeks })));
-				for (const p of rows) await sr.setClaimHash(p.id, claimCodeHash(claimCode(secret, p.id, p.claimVersion)), p.claimVersion);
+				await insertSoldPlants(tx, secret, { saleId: inserted.id, cultivarId: batch.cultivarId, soldOn, ageAtSaleWeeks, quantity: input.quantity });
 				return { created: true as const, id: inserted.id };
 			});
 			const row = outcome.created ? await repo.sale(outcome.id) : await repo.saleByClientId(input.clientId);

@@ -6,6 +6,7 @@
 import { parseIsoDate } from '../../care';
 import { AGE_MAX_WEEKS } from '../../schema/plan';
 import type { ReceiveInput } from '../../schema/stock';
+import type { StallBatch } from '../../stall/search';
 import { UserFacingError } from '../errors';
 import type { AnyDb } from '../secrets';
 import { stockRepository, type BatchRow } from './repository';
@@ -23,15 +24,8 @@ export interface StockDeps {
 	onStockArrived?: (cultivarId: number) => Promise<void>;
 }
 
-export interface BatchView {
-	id: number;
-	cultivar: { slug: string; name: string };
-	pottedOn: string;
-	ageWeeks: number;
-	onHand: number;
-	location: null | { marketDayId: number; on: string; place: string };
-	usualPriceCents: number | null;
-}
+/** A batch as pages and the API show it (the stall's type-ahead reads the same shape). */
+export type BatchView = StallBatch;
 
 export function batchView(b: BatchRow, today: string): BatchView {
 	return {

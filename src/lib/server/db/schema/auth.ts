@@ -1,6 +1,8 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { ROLES } from '../../../schema/auth';
+import { UNITS } from '../../../care/vocabulary';
 
-export const roleEnum = pgEnum('role', ['owner', 'staff', 'gardener']);
+export const roleEnum = pgEnum('role', ROLES);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
 
 import { createdAt } from './columns';
@@ -14,7 +16,7 @@ export const users = pgTable(
 		passwordHash: text('password_hash').notNull(),
 		role: roleEnum('role').notNull().default('gardener'),
 		emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
-		units: text('units', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+		units: text('units', { enum: UNITS }).notNull().default('metric'),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('users_email_key').on(t.email)]
@@ -62,6 +64,8 @@ export const invitations = pgTable(
 			.references(() => users.id, { onDelete: 'cascade' }),
 		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
 		acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+		/** Set when a newer invitation to the same address took this one's place; its link then says so. */
+		replacedAt: timestamp('replaced_at', { withTimezone: true }),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('invitations_hash_key').on(t.tokenHash), index('invitations_email_idx').on(t.email)]

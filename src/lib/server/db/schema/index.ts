@@ -8,3 +8,4 @@ export * from './secrets';
 export * from './uploads';
 export * from './milestones';
 export * from './delivery';
+export * from './board';

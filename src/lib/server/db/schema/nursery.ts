@@ -1,4 +1,5 @@
 import { boolean, integer, jsonb, pgTable, real, text, timestamp } from 'drizzle-orm/pg-core';
+import { UNITS } from '../../../care/vocabulary';
 import { defaultFeeding } from '../../../care/feeding';
 
 /** One row: the nursery this instance serves. */
@@ -7,7 +8,7 @@ export const nurserySettings = pgTable('nursery_settings', {
 	name: text('name').notNull(),
 	town: text('town').notNull(),
 	market: text('market').notNull(),
-	units: text('units', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+	units: text('units', { enum: UNITS }).notNull().default('metric'),
 	timeZone: text('time_zone').notNull().default('UTC'),
 	defaultClimate: text('default_climate').notNull(),
 	fertilizerName: text('fertilizer_name').notNull(),
