@@ -2,7 +2,7 @@
 export type * from './types';
 export { computePlan, KIND_ORDER, GUIDE_FOR, DEFAULT_GENERATIONS } from './plan';
 export { STEP_KINDS, UNITS, MONTH_NAMES, MONTH_ABBREVIATIONS, PLAN_BOUNDS, MONTHLY_MEAN_RANGE_TEXT } from './vocabulary';
-export { PLANT_STAGES, PLANT_STAGE_IDS, STAGE_OF_STEP, stageLabel, stageOn, generationLabel, generationName, type PlantStage } from './stages';
+export { PLANT_STAGES, PLANT_STAGE_IDS, STAGE_OF_STEP, isPlantStage, stageLabel, stageOn, generationLabel, generationName, type PlantStage } from './stages';
 export { PlanInputError, observedIssues, dateIssue, coolClimateIssue, BOUND_MESSAGES, MILESTONE_NAMES, type PlanInputIssue } from './validate';
 export {
 	cultivars,

@@ -19,6 +19,9 @@ export const PLANT_STAGES = [
 export type PlantStage = (typeof PLANT_STAGES)[number]['id'];
 export const PLANT_STAGE_IDS = PLANT_STAGES.map((s) => s.id) as PlantStage[];
 
+/** Narrows a stored stage (a text column) to the vocabulary. */
+export const isPlantStage = (value: string): value is PlantStage => (PLANT_STAGE_IDS as string[]).includes(value);
+
 export function stageLabel(stage: PlantStage): string {
 	return PLANT_STAGES.find((s) => s.id === stage)!.label;
 }

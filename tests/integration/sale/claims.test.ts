@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { computePlan, findClimate, findCultivar } from '../../../src/lib/care';
-import { STAGE_OF } from '../../../src/lib/plan-text';
+import { STAGE_OF_STEP } from '../../../src/lib/care';
 import { db } from '../../../src/lib/server/db';
 import { plants, signInAttempts, waitlistEntries } from '../../../src/lib/server/db/schema';
 import { claimService, salesService, stockService, waitlistService } from '../../../src/lib/server/sale-side';
@@ -109,7 +109,7 @@ describe('GET /api/v1/plants', () => {
 		const one = await callAs(getPlant, pim, `/api/v1/plants/${ids[0]}`, { params: { id: String(ids[0]) } });
 		const mine = ((await one.json()) as { plant: { nextStep: { kind: string; on: string } | null; stage: { id: string } | null } }).plant;
 		// The stage stored with the plan the claim wrote: planted today, so at the planting stage.
-		expect(mine.stage?.id).toBe(STAGE_OF.planting);
+		expect(mine.stage?.id).toBe(STAGE_OF_STEP.planting);
 		// The next step is the engine's first step from today on, for the same inputs.
 		const plan = computePlan({ cultivar: findCultivar('grand-nain')!, plantedOn: today(), ageAtPlantingWeeks: 12, climate: { monthlyMeanC: findClimate('south-florida-coast')!.monthlyMeanC } });
 		expect(mine.nextStep).toMatchObject({ kind: plan.steps[0].kind, on: plan.steps[0].likely });

@@ -2,7 +2,8 @@
 import type { StepMove } from '$lib/plants/plan-diff';
 import { bunchMassGrams, bunchMassUnit } from '$lib/plants/milestones';
 import type { Units } from '$lib/care';
-import { STAGES } from '$lib/plan-text';
+import { stageLabel } from '$lib/plan-text';
+import { isPlantStage } from '$lib/care';
 import type { PlanStepRow } from '../plans/repository';
 import type { MilestoneRow, PlantRow } from './plant-repository';
 
@@ -18,7 +19,7 @@ export function plantJson(p: { plant: PlantRow; cultivarName: string; cultivarSl
 		climate: p.climateSlug ?? (plant.customMonthlyMeanC ? { monthlyMeanC: plant.customMonthlyMeanC } : null),
 		units: plant.units,
 		archived: plant.archivedAt !== null,
-		stage: plant.stage ? { id: plant.stage, label: STAGES.find((s) => s.stage === plant.stage)?.label ?? plant.stage } : null,
+		stage: plant.stage && isPlantStage(plant.stage) ? { id: plant.stage, label: stageLabel(plant.stage) } : null,
 		nextStep: plant.nextStepOn ? { on: plant.nextStepOn, kind: plant.nextStepKind } : null,
 		lastMilestone: plant.lastMilestoneOn ? { on: plant.lastMilestoneOn, kind: plant.lastMilestoneKind } : null,
 		parentPlantId: plant.parentPlantId,

@@ -3,13 +3,13 @@
  * rules, divisions, and the plant's settings. Every change re-times the stored plan through
  * `regeneratePlan` inside the same transaction, so a refused change writes nothing.
  */
-import { parseIsoDate, type Units } from '$lib/care';
+import { isPlantStage, parseIsoDate, type Units } from '$lib/care';
 import { plantAccess } from '$lib/plants/access';
 import { bunchMassGrams, MILESTONE_BOUNDS, type LossReason, type MilestoneKind } from '$lib/plants/milestones';
 import type { ChangeCause } from '$lib/plants/changes';
 import type { MilestoneInput, MilestonePatch, PlantPatch } from '$lib/schema/plant';
 import { AGE_MAX_WEEKS } from '$lib/schema/plan';
-import { STAGES, formatDay, generationLabel } from '$lib/plan-text';
+import { formatDay, generationLabel, stageLabel } from '$lib/plan-text';
 import { agendaFor } from '$lib/plants/agenda';
 import { stepFromStored } from '$lib/plants/plan-diff';
 import { describeCause, describeShift } from '$lib/plants/changes';
@@ -144,7 +144,7 @@ export function createPlantService(deps: PlantServiceDeps) {
 					units,
 					archived: plant.archivedAt !== null,
 					gardenerName: found.gardenerName,
-					stageLabel: STAGES.find((s) => s.stage === plant.stage)?.label ?? null,
+					stageLabel: plant.stage && isPlantStage(plant.stage) ? stageLabel(plant.stage) : null,
 					stemLabel: generationLabel(generation),
 					generation
 				},
