@@ -65,6 +65,11 @@ export function startMailServer({ port = DEFAULTS.smtpPort, dir = DEFAULTS.mailD
 			});
 		}
 	});
+	// A client that vanishes mid-message (a worker killed by the reliability tests, a dropped
+	// connection) surfaces here; without a listener Node would treat it as an uncaught exception.
+	server.on('error', (e) => {
+		if (/** @type {NodeJS.ErrnoException} */ (e).code !== 'ECONNRESET') console.error('[fake mail]', e.message);
+	});
 	const close = server.close.bind(server);
 	Object.assign(server, {
 		/** How to answer from now on. @param {Rule} next */
