@@ -86,8 +86,8 @@ function byDay(a: LoggedMilestone, b: LoggedMilestone): number {
 }
 
 /**
- * The engine's observed inputs from a plant's milestones, per generation. Kinds that are not
- * engine inputs (division, notes on the mat) re-time nothing.
+ * The engine's observed inputs from a plant's milestones, per generation. A division re-times
+ * nothing on this plant: it starts a plant of its own.
  */
 export function observedInputs(milestones: readonly LoggedMilestone[]): ObservedInputs {
 	const perGeneration: Observed[] = [];
@@ -100,13 +100,25 @@ export function observedInputs(milestones: readonly LoggedMilestone[]): Observed
 			case 'followers':
 				o.followersOn ??= m.on; // the first sighting starts the follower's life
 				break;
+			case 'flag-leaf':
+				o.flagLeafOn = m.on;
+				break;
 			case 'shooting':
 				o.shotOn = m.on;
 				break;
 			case 'harvest':
 				o.harvestedOn = m.on;
 				break;
-			default:
+			case 'cut-back':
+				o.cutBackOn = m.on;
+				break;
+			case 'stem-removed':
+				o.stemRemovedOn = m.on;
+				break;
+			case 'lost':
+				o.lostOn = m.on;
+				break;
+			case 'division':
 				break;
 		}
 	}

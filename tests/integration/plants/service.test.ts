@@ -11,7 +11,7 @@ import { UPLOAD_LIMITS } from '../../../src/lib/uploads';
 import { gpsOf, oversizedJpeg, phonePhotoWithGps, pixelBombPng, scriptAsJpeg } from '../../helpers/images';
 import { insertGardener, insertPlant } from '../../helpers/plants';
 
-const stepsOf = (plantId: number) => db.select().from(planSteps).where(eq(planSteps.plantId, plantId)).orderBy(asc(planSteps.likely));
+const stepsOf = (plantId: number) => db.select().from(planSteps).where(eq(planSteps.plantId, plantId)).orderBy(asc(planSteps.likely), asc(planSteps.uid));
 const file = (bytes: Buffer, name: string, type: string) => new File([new Uint8Array(bytes)], name, { type });
 const storedFiles = (): string[] => (existsSync(config.uploadDir) ? readdirSync(config.uploadDir, { recursive: true, withFileTypes: true }).filter((e) => e.isFile()).map((e) => join(e.parentPath, e.name)) : []);
 const counts = async (plantId: number, ownerId: number) => ({
@@ -70,13 +70,29 @@ describe('logging a milestone', () => {
 
 	it('refuses a day before planting or in the future, naming the field, and writes nothing', async () => {
 		const plant = await insertPlant({ gardenerId: pim.id, plantedOn });
-		const stepsBefore = await stepsOf(plant.id);
+		const forecast = await stepsOf(plant.id);
 		await expect(plantService.log(pim, plant.id, { kind: 'shooting', on: isoDaysAfter(plantedOn, -1), generation: 0 })).rejects.toMatchObject({ field: 'on', status: 400 });
 		await expect(plantService.log(pim, plant.id, { kind: 'shooting', on: isoDaysAfter(new Date().toISOString().slice(0, 10), 2), generation: 0 })).rejects.toMatchObject({ field: 'on' });
+		expect(await stepsOf(plant.id)).toEqual(forecast);
 		await plantService.log(pim, plant.id, { kind: 'shooting', on: isoDaysAfter(plantedOn, 300), generation: 0 });
+		const afterShooting = await stepsOf(plant.id);
 		await expect(plantService.log(pim, plant.id, { kind: 'harvest', on: isoDaysAfter(plantedOn, 299), generation: 0 })).rejects.toMatchObject({ field: 'on', message: expect.stringMatching(/harvest comes after/) });
 		expect((await db.select().from(milestones).where(eq(milestones.plantId, plant.id))).length).toBe(1);
-		expect((await stepsOf(plant.id)).length).toBe(stepsBefore.length);
+		expect(await stepsOf(plant.id)).toEqual(afterShooting);
+	});
+
+	it("a milestone logged on a follower re-times that follower's own steps", async () => {
+		const plant = await insertPlant({ gardenerId: pim.id, plantedOn });
+		const harvestOf = async (generation: number) => (await stepsOf(plant.id)).find((s) => s.kind === 'harvest' && s.generation === generation)!;
+		const [motherBefore, followerBefore] = [await harvestOf(0), await harvestOf(1)];
+		// The follower flowers far earlier than forecast: its harvest comes forward, the mother's stays.
+		const shot = isoDaysAfter(plantedOn, 390);
+		expect(shot < followerBefore.likely).toBe(true);
+		await plantService.log(pim, plant.id, { kind: 'shooting', on: shot, generation: 1 });
+		const [motherAfter, followerAfter] = [await harvestOf(0), await harvestOf(1)];
+		expect(motherAfter.likely).toBe(motherBefore.likely);
+		expect(followerAfter.likely < followerBefore.likely).toBe(true);
+		expect(followerAfter.uid).toBe(followerBefore.uid);
 	});
 
 	it('a correction and a deletion re-time the plan; deleting brings the forecast back with the same uids', async () => {

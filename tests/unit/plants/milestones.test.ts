@@ -21,6 +21,17 @@ describe('milestones as the engine’s observed inputs', () => {
 		expect(observedFollowers).toEqual([{}, { shotOn: '2028-02-01' }]);
 	});
 
+	it('the flag leaf, cut-back, stem removal and a loss each reach the engine on their own stem', () => {
+		const { observed, observedFollowers } = observedInputs([
+			m('flag-leaf', '2027-01-02'),
+			m('cut-back', '2027-05-20'),
+			m('stem-removed', '2027-07-01'),
+			m('lost', '2027-09-01', { generation: 1 })
+		]);
+		expect(observed).toEqual({ flagLeafOn: '2027-01-02', cutBackOn: '2027-05-20', stemRemovedOn: '2027-07-01' });
+		expect(observedFollowers).toEqual([{ lostOn: '2027-09-01' }]);
+	});
+
 	it('a leaf count without a number and a division re-time nothing', () => {
 		expect(observedInputs([m('leaves', '2026-06-01', { leaves: null }), m('division', '2026-08-01')]).observed).toEqual({});
 	});

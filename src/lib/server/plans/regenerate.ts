@@ -66,7 +66,7 @@ export function createPlanRegenerator(deps: RegenerationDeps) {
 			await deps.repo.milestonesForPlan(tx, plantId),
 			await deps.repo.steps(tx, plantId)
 		];
-		const { observed } = observedInputs(logged);
+		const { observed, observedFollowers } = observedInputs(logged);
 		let plan;
 		try {
 			plan = computePlan({
@@ -76,7 +76,8 @@ export function createPlanRegenerator(deps: RegenerationDeps) {
 				climate: { monthlyMeanC },
 				units: plant.units ?? 'metric',
 				feeding: context.feeding,
-				observed
+				observed,
+				observedFollowers
 			});
 		} catch (e) {
 			// The engine refuses inputs it cannot plan from (a milestone before planting, a climate too cool to fruit).
