@@ -90,10 +90,13 @@ describe('a sale at the stall, claimed by its buyer', () => {
 		await phone.getByLabel('Planting date').fill('2020-01-01');
 		await phone.getByRole('button', { name: 'Claim this plant' }).click();
 		await expect.poll(() => phone.locator('#field-plantedOn-error').textContent()).toContain('before the sale');
+		// The refused form re-renders once more when the page's data reloads after the answer; typing before then would be overwritten.
+		await phone.waitForLoadState('networkidle');
 
 		const today = new Date().toISOString().slice(0, 10);
 		await phone.getByLabel('Planting date').fill(today);
 		await phone.getByLabel("Your garden's climate").selectOption({ index: 1 });
+		expect(await phone.getByLabel('Planting date').inputValue()).toBe(today);
 		await phone.getByRole('button', { name: 'Claim this plant' }).click();
 		await phone.waitForURL(/\/plants\?claimed=\d+/);
 		await expectAccessible(phone);
