@@ -16,10 +16,22 @@ export default defineConfig({
 				test: {
 					name: 'integration',
 					include: ['tests/integration/**/*.test.ts'],
-					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts'],
+					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts', 'tests/setup/worker.ts'],
 					fileParallelism: false,
 					testTimeout: 30_000,
 					hookTimeout: 60_000
+				}
+			},
+			{
+				extends: true,
+				test: {
+					// Attacks on the running production build and its services, each test named with its OWASP ASVS 5.0 requirement.
+					name: 'security',
+					include: ['tests/security/**/*.test.ts'],
+					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts', 'tests/setup/worker.ts', 'tests/setup/server.ts'],
+					fileParallelism: false,
+					testTimeout: 60_000,
+					hookTimeout: 180_000
 				}
 			},
 			{
@@ -29,7 +41,7 @@ export default defineConfig({
 					include: ['tests/e2e/**/*.test.ts'],
 					// A real browser on a shared 2-core machine: one retry absorbs a scheduling hiccup, not a bug that repeats.
 					retry: 1,
-					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts', 'tests/setup/server.ts'],
+					globalSetup: ['tests/setup/database.ts', 'tests/setup/mail.ts', 'tests/setup/worker.ts', 'tests/setup/server.ts'],
 					fileParallelism: false,
 					testTimeout: 60_000,
 					hookTimeout: 180_000

@@ -7,6 +7,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { SMTPServer } from 'smtp-server';
 import { isMainModule } from './main-module.mjs';
+import { DEFAULTS, environmentOrExit } from '../src/lib/server/env.js';
 
 const REPLIES = {
 	451: 'Requested action aborted: try again later',
@@ -18,7 +19,7 @@ const REPLIES = {
  * @param {{ port?: number, dir?: string, store?: boolean, delayMs?: number }} [options]
  *   store: false keeps nothing on disk (benchmarks); delayMs: pause before accepting each message.
  */
-export function startMailServer({ port = 2525, dir = 'dev-mail', store = true, delayMs = 0 } = {}) {
+export function startMailServer({ port = DEFAULTS.smtpPort, dir = DEFAULTS.mailDir, store = true, delayMs = 0 } = {}) {
 	const out = resolve(dir);
 	if (store) mkdirSync(out, { recursive: true });
 	let counter = 0;
@@ -84,8 +85,9 @@ export function startMailServer({ port = 2525, dir = 'dev-mail', store = true, d
 }
 
 if (isMainModule(import.meta.url)) {
-	const port = Number(process.env.SMTP_PORT ?? 2525);
-	const dir = process.env.MAIL_DIR ?? 'dev-mail';
+	const { mail, mailDir: dir } = environmentOrExit();
+	const port = mail.port;
+	// FAKE_SMTP_* steer only this fake service (the reliability tests and the dispatch bench).
 	const store = process.env.FAKE_SMTP_STORE !== 'off';
 	const server = await startMailServer({ port, dir, store });
 	const told = process.env.FAKE_SMTP_ANSWER;

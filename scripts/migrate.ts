@@ -5,6 +5,7 @@ import { drizzle } from 'drizzle-orm/postgres-js';
 import { migrate } from 'drizzle-orm/postgres-js/migrator';
 import postgres from 'postgres';
 import { isMainModule } from './main-module.mjs';
+import { environmentOrExit } from '../src/lib/server/env.js';
 import { syncBuiltInCatalogue } from '../src/lib/server/catalogue/sync';
 
 export async function migrateDatabase(url: string): Promise<void> {
@@ -20,8 +21,7 @@ export async function migrateDatabase(url: string): Promise<void> {
 }
 
 if (isMainModule(import.meta.url)) {
-	const url = process.env.DATABASE_URL;
-	if (!url) throw new Error('DATABASE_URL is not set');
+	const url = environmentOrExit().databaseUrl;
 	await migrateDatabase(url);
 	console.log('Migrations applied');
 }

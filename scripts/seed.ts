@@ -2,6 +2,7 @@
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { isMainModule } from './main-module.mjs';
+import { environmentOrExit } from '../src/lib/server/env.js';
 import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
@@ -37,8 +38,7 @@ export async function seedDemo(url: string): Promise<void> {
 }
 
 if (isMainModule(import.meta.url)) {
-	const url = process.env.DATABASE_URL;
-	if (!url) throw new Error('DATABASE_URL is not set');
+	const url = environmentOrExit().databaseUrl;
 	await seedDemo(url);
 	console.log('Demo scenario seeded');
 }

@@ -1,17 +1,20 @@
-// npm start: PostgreSQL, migrations, demo seed, fake mail service, app and reminder worker.
+// npm start: PostgreSQL, migrations, demo seed, fake mail service, app and job worker (account e-mail; reminders later).
 // npm run dev: the same with vite's hot reload. Ctrl-C stops everything started here, and only that.
 import { spawn, spawnSync } from 'node:child_process';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo.mjs';
 import { demoCluster } from './pg.mjs';
+import { DEFAULTS, environmentOrExit } from '../src/lib/server/env.js';
 
 const dev = process.argv.includes('--dev');
-const host = '127.0.0.1';
-const port = Number(process.env.PORT ?? (dev ? 5173 : 4173));
+// A mistyped variable (BUNCHLINE_ENV=prod, PORT=80a) stops here, before anything starts.
+const given = environmentOrExit();
+const host = DEFAULTS.host;
+const port = given.port ?? (dev ? DEFAULTS.devPort : DEFAULTS.appPort);
 const url = `http://${host}:${port}`;
 const VITE = 'node_modules/vite/bin/vite.js';
 
-const cluster = demoCluster();
-const ownsDatabase = !process.env.DATABASE_URL;
+const cluster = demoCluster(given);
+const ownsDatabase = !given.externalDatabase;
 const children = [];
 let stopping = false;
 
@@ -50,12 +53,11 @@ if (ownsDatabase) {
 
 const env = {
 	...process.env,
-	DATABASE_URL: process.env.DATABASE_URL ?? cluster.url,
-	SMTP_PORT: process.env.SMTP_PORT ?? '2525',
-	MAIL_DIR: process.env.MAIL_DIR ?? 'dev-mail',
-	BUNCHLINE_ENV: process.env.BUNCHLINE_ENV ?? (dev ? 'development' : 'demo'),
+	DATABASE_URL: given.databaseUrl,
+	SMTP_PORT: String(given.mail.port),
+	MAIL_DIR: given.mailDir,
+	BUNCHLINE_ENV: process.env.BUNCHLINE_ENV || (dev ? 'development' : 'demo'),
 	ORIGIN: url,
-	PUBLIC_URL: url,
 	HOST: host,
 	PORT: String(port)
 };
@@ -89,8 +91,8 @@ function launch(name, args) {
 
 launch('mail service', ['scripts/mail-server.mjs']);
 // node --import tsx keeps the worker one process, so the stop signal reaches it directly.
-launch('reminder worker', ['--import', 'tsx', 'scripts/worker.ts']);
-launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['build/index.js']);
+launch('job worker', ['--import', 'tsx', 'scripts/worker.ts']);
+launch('app', dev ? [VITE, 'dev', '--host', host, '--port', String(port), '--strictPort'] : ['scripts/serve.mjs']);
 
 setTimeout(() => {
 	if (stopping) return;

@@ -1,11 +1,18 @@
-// The job worker: sends reminder e-mail from the reminder table through pg-boss. Safe to run as
-// many copies as needed (`npm run worker`); `npm start` runs one beside the app.
+// The job worker: sends account e-mail (confirmation, reset, invitation) and reminder e-mail
+// (from the reminder table) through pg-boss. Safe to run as many copies as needed
+// (`npm run worker`; pg-boss hands each job to one worker); `npm start` runs one beside the app.
 import { isMainModule } from './main-module.mjs';
+import { environmentOrExit } from '../src/lib/server/env.js';
 
 export async function startWorker(): Promise<() => Promise<void>> {
 	// Imported here so the environment (DATABASE_URL, SMTP_PORT…) is read once it is final.
+	const { consume, QUEUES } = await import('../src/lib/server/jobs');
+	const { runAccountMailJob } = await import('../src/lib/server/accounts/mail');
 	const { startReminderWorker } = await import('../src/lib/server/reminders/worker');
 	const { closeDb } = await import('../src/lib/server/db');
+	// One job per fetch, so a failed send retries only its own message; four loops keep a burst of
+	// sign-ups from queueing the next person's link behind 0.5 s polls.
+	await consume(QUEUES.accountMail, runAccountMailJob, { workers: 4 });
 	const stop = await startReminderWorker();
 	return async () => {
 		await stop();
@@ -14,9 +21,9 @@ export async function startWorker(): Promise<() => Promise<void>> {
 }
 
 if (isMainModule(import.meta.url)) {
-	if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
+	environmentOrExit();
 	const stop = await startWorker();
-	console.log('Reminder worker waiting for due reminders');
+	console.log('Worker waiting for jobs (account e-mail, reminders)');
 	const onSignal = async () => {
 		await stop();
 		process.exit(0);

@@ -1,14 +1,20 @@
 import { text, type Handle, type ServerInit } from '@sveltejs/kit';
 import { validateSessionCookie } from '$lib/server/auth';
-import { config } from '$lib/server/config';
+import { assertReadyToServe, config } from '$lib/server/config';
 import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
+import { closeDb } from '$lib/server/db';
+import { stopJobs } from '$lib/server/jobs';
+import { publicApiLimit } from '$lib/server/api-limit';
+import { DEFAULT_CACHE_CONTROL, SECURITY_HEADERS } from '$lib/server/security-headers.js';
 import { assertClaimSecret } from '$lib/server/secrets';
 
-/** In production, e-mailed links and the origin check need the public URL: refuse to start without it. */
 export const init: ServerInit = () => {
-	if (config.mode === 'production' && !process.env.ORIGIN && !process.env.PUBLIC_URL) {
-		throw new Error('Set ORIGIN to the public URL of this site (for example ORIGIN=https://plants.example.org)');
-	}
+	assertReadyToServe();
+	// The production server (scripts/serve.mjs, or adapter-node's own) emits this once it has
+	// stopped taking requests: end the pool and the queue so the process can exit.
+	process.once('sveltekit:shutdown' as 'exit', async () => {
+		await Promise.allSettled([stopJobs(), closeDb()]);
+	});
 	assertClaimSecret(config);
 };
 
@@ -16,6 +22,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	if (isForbiddenCrossSiteForm(event.request, event.url)) {
 		return text(`Cross-site ${event.request.method} form submissions are forbidden`, { status: 403 });
 	}
+	const limited = publicApiLimit(event);
+	if (limited) return withHeaders(limited);
 	const { user, session } = await validateSessionCookie(event.cookies);
 	event.locals.user = user;
 	event.locals.session = session;
@@ -28,8 +36,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 };
 
 function withHeaders(response: Response): Response {
-	response.headers.set('X-Content-Type-Options', 'nosniff');
-	response.headers.set('Referrer-Policy', 'same-origin');
-	response.headers.set('X-Frame-Options', 'DENY');
+	for (const [name, value] of SECURITY_HEADERS) response.headers.set(name, value);
+	// Pages show personal data (the team, the mailbox, a reset form with its token): never stored.
+	if (!response.headers.has('cache-control')) response.headers.set('cache-control', DEFAULT_CACHE_CONTROL);
 	return response;
 }

@@ -36,8 +36,11 @@ const byRole: Record<Role, NavLink[]> = {
 	]
 };
 
+/** Every signed-in person's own settings. */
+const accountLink: NavLink = { href: '/settings/account', label: 'Account' };
+
 export function navFor(role: Role | null): NavLink[] {
-	return role ? [...byRole[role], ...publicLinks] : publicLinks;
+	return role ? [...byRole[role], ...publicLinks, accountLink] : publicLinks;
 }
 
 /** Where each role lands after signing in. */
@@ -45,17 +48,44 @@ export const HOME_FOR: Record<Role, string> = { gardener: '/plants', staff: '/nu
 
 const PROBE_ORIGIN = 'http://same-site.invalid';
 
+/** The path with every percent-encoding undone (a few rounds: proxies and frameworks may decode again), or null if malformed. */
+function fullyDecoded(path: string): string | null {
+	let current = path;
+	for (let round = 0; round < 4; round++) {
+		let next: string;
+		try {
+			next = decodeURIComponent(current);
+		} catch {
+			return null;
+		}
+		if (next === current) return current;
+		current = next;
+	}
+	return null;
+}
+
+/** "//host" and "/\\host" are network paths to another site, for browsers and for some servers' decoding. */
+function leavesSite(path: string): boolean {
+	const networkPath = /^[/\\][/\\]/;
+	const resolved = new URL(path, PROBE_ORIGIN);
+	return networkPath.test(path) || resolved.origin !== PROBE_ORIGIN || networkPath.test(resolved.pathname);
+}
+
 /**
- * Only same-site paths are followed after sign-in (no open redirect). The path is resolved the
- * way a browser would — which drops tabs and newlines and reads "\\" as "/" — and kept only if
- * it stays on this site; control characters are refused outright, since they are not valid in
- * a Location header either.
+ * Only same-site paths are followed after sign-in (no open redirect, ASVS 3.7.2). The value is
+ * resolved against the site the way a browser would (dot segments, "\\" read as "/"), and kept
+ * only if the result stays on the site and its path, decoded as often as anyone might decode it,
+ * neither starts with "//" or "/\\" nor points elsewhere. Control characters are refused outright:
+ * they are not valid in a Location header either.
  */
 export function safeNext(next: string | null, fallback: string): string {
 	if (!next || !next.startsWith('/') || /[\u0000-\u001f\u007f\\]/.test(next)) return fallback;
 	try {
 		const url = new URL(next, PROBE_ORIGIN);
-		return url.origin === PROBE_ORIGIN ? url.pathname + url.search + url.hash : fallback;
+		if (url.origin !== PROBE_ORIGIN) return fallback;
+		const decoded = fullyDecoded(url.pathname);
+		if (decoded === null || /[\u0000-\u001f\u007f\\]/.test(decoded) || leavesSite(url.pathname) || leavesSite(decoded)) return fallback;
+		return url.pathname + url.search + url.hash;
 	} catch {
 		return fallback;
 	}

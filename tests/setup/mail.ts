@@ -13,7 +13,8 @@ declare module 'vitest' {
 }
 
 export default async function setup(project: TestProject) {
-	const port = testPorts.smtp + (project.name === 'e2e' ? 1 : 0);
+	// Each project its own port, so a security run and an end-to-end run never read each other's mail.
+	const port = testPorts.smtp + (['integration', 'e2e', 'security'].indexOf(project.name) + 1);
 	const mailDir = mkdtempSync(join(tmpdir(), `bunchline-mail-${project.name}-`));
 	const server = await startMailServer({ port, dir: mailDir });
 	process.env.SMTP_PORT = String(port);

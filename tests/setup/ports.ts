@@ -8,6 +8,6 @@ const offset = parseInt(createHash('sha1').update(process.cwd()).digest('hex').s
 
 export const testPorts = {
 	postgres: Number(process.env.BUNCHLINE_TEST_PG_PORT ?? 55000 + offset),
-	smtp: Number(process.env.BUNCHLINE_TEST_SMTP_PORT ?? 56000 + offset * 2),
+	smtp: Number(process.env.BUNCHLINE_TEST_SMTP_PORT ?? 56000 + offset * 4),
 	app: Number(process.env.BUNCHLINE_E2E_PORT ?? 57000 + offset)
 };

@@ -43,9 +43,9 @@ export default async function setup(project: TestProject) {
 		const build = spawnSync('node', ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'error'], { stdio: 'inherit' });
 		if (build.status !== 0) throw new Error('vite build failed');
 	}
-	const server = spawn('node', ['build/index.js'], {
+	const server = spawn('node', ['scripts/serve.mjs'], {
 		stdio: ['ignore', 'inherit', 'inherit'],
-		env: { ...process.env, HOST: '127.0.0.1', PORT: String(testPorts.app), ORIGIN: baseUrl, PUBLIC_URL: baseUrl, BUNCHLINE_ENV: 'test' }
+		env: { ...process.env, HOST: '127.0.0.1', PORT: String(testPorts.app), ORIGIN: baseUrl, BUNCHLINE_ENV: 'test' }
 	});
 	try {
 		await waitForServer(server, baseUrl, 30_000);

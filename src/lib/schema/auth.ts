@@ -1,15 +1,19 @@
 import { z } from 'zod';
+import { CONTROL_CHARACTERS, idField, lineField } from './fields';
 
+/** The one list of roles: the pg enum, the schemas, the guard and the pages derive from it. */
 export const ROLES = ['owner', 'staff', 'gardener'] as const;
 export type Role = (typeof ROLES)[number];
+/** The nursery's own people; gardeners are its buyers. */
+export const TEAM_ROLES = ['owner', 'staff'] as const satisfies readonly Role[];
+export type TeamRole = (typeof TEAM_ROLES)[number];
 
-/** Refused outright: the most common choices in public breach lists (NCSC "100k most common", top entries). */
-export const COMMON_PASSWORDS = new Set([
-	'password', 'password1', 'password123', '12345678', '123456789', '1234567890', 'qwertyuiop',
-	'qwerty123', 'iloveyou', '11111111', '00000000', 'abc12345', 'sunshine', 'princess', 'football',
-	'baseball', 'welcome1', 'letmein1', 'passw0rd', 'trustno1', 'superman', 'starwars', 'whatever',
-	'dragon12', 'monkey12', 'bananas1', 'banana123', 'bunchline'
-]);
+/** How a role reads on a page and in e-mail. */
+export const ROLE_LABELS: Record<Role, string> = { owner: 'Owner', staff: 'Staff', gardener: 'Gardener' };
+/** The same inside a sentence ("invited as staff"). */
+export const roleInSentence = (role: Role) => ROLE_LABELS[role].toLowerCase();
+
+const roleList = (roles: readonly Role[]) => roles.map(roleInSentence).join(' or ');
 
 export const PASSWORD_MIN = 8;
 export const PASSWORD_MAX = 128;
@@ -26,20 +30,20 @@ export const newPasswordField = z
 	.string({ error: 'Choose a password' })
 	.min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters`)
 	.max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters`)
-	.refine((p) => !COMMON_PASSWORDS.has(p.toLowerCase()), 'This password is too common: choose another');
+	.refine((p) => !CONTROL_CHARACTERS.test(p), 'A password cannot hold control characters such as tabs or line breaks');
+// How guessable it is (common passwords, the person's name and e-mail, the nursery's name) is judged
+// by $lib/password-strength, in the browser as a hint and on the server as the refusal.
 
-export const nameField = z
-	.string({ error: 'Enter your name' })
-	.trim()
-	.min(1, 'Enter your name')
-	.max(80, 'A name has at most 80 characters');
+export const NAME_MAX = 80;
+export const nameField = lineField({ required: 'Enter your name', max: NAME_MAX, tooLong: `A name has at most ${NAME_MAX} characters`, bidi: true });
 
 export const signUpSchema = z.object({ name: nameField, email: emailField, password: newPasswordField });
 
-export const signInSchema = z.object({
-	email: emailField,
-	password: z.string({ error: 'Enter your password' }).min(1, 'Enter your password').max(PASSWORD_MAX, 'Too long')
-});
+const currentPasswordField = z.string({ error: 'Enter your password' }).min(1, 'Enter your password').max(PASSWORD_MAX, 'Too long');
+
+export const signInSchema = z.object({ email: emailField, password: currentPasswordField });
+
+export const changePasswordSchema = z.object({ currentPassword: currentPasswordField, password: newPasswordField });
 
 export const resetRequestSchema = z.object({ email: emailField });
 
@@ -51,11 +55,13 @@ export const verifySchema = z.object({ token: tokenField });
 
 export const resetSchema = z.object({ token: tokenField, password: newPasswordField });
 
-export const inviteSchema = z.object({ email: emailField, role: z.enum(['staff', 'owner'], { error: 'Choose staff or owner' }) });
+export const inviteSchema = z.object({ email: emailField, role: z.enum(TEAM_ROLES, { error: `Choose ${roleList(TEAM_ROLES)}` }) });
 
 export const acceptInviteSchema = z.object({ token: tokenField, name: nameField, password: newPasswordField });
 
 export const changeRoleSchema = z.object({
-	userId: z.coerce.number({ error: 'Unknown person' }).int().positive('Unknown person'),
-	role: z.enum(ROLES, { error: 'Choose owner, staff or gardener' })
+	userId: idField('Unknown person'),
+	role: z.enum(ROLES, { error: `Choose ${roleList(ROLES)}` }),
+	/** Present once the owner has confirmed the change on the page. */
+	confirmed: z.literal('yes').optional()
 });

@@ -1,6 +1,8 @@
 /**
- * The job queue: pg-boss 10 on the app's PostgreSQL, for work done outside a request (reminder
- * e-mail today). Many processes may run it at once; pg-boss hands each job to one of them.
+ * The job queue: pg-boss 10 on the app's PostgreSQL, for work done outside a request (account
+ * e-mail and reminder e-mail). Many processes may run it at once; pg-boss hands each job to one
+ * of them. The app only sends; scripts/worker.ts consumes. Jobs carry ids and addresses, never
+ * secrets: a job that e-mails a link mints the link itself.
  * pg-boss 10 retries nothing by default, so every queue gets a retry limit, backoff and expiry,
  * and errors are logged through an 'error' listener instead of crashing the process.
  */
@@ -9,7 +11,7 @@ import { config } from './config';
 
 const QUEUE_POLICY = { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 300 } as const;
 
-export const QUEUES = { reminderSend: 'reminder-send' } as const;
+export const QUEUES = { accountMail: 'account-mail', reminderSend: 'reminder-send' } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
 let boss: Promise<PgBoss> | undefined;

@@ -3,10 +3,12 @@
  * with the cultivar, climate and the nursery's fertilizer and local rules taken from a catalogue
  * snapshot (`catalogueService.snapshot()`). Nothing is stored: previews are for anyone.
  */
+import { createHash } from 'node:crypto';
 import { PlanInputError, computePlan, type Cultivar, type Plan, type PlanInput } from '$lib/care';
 import { CUSTOM_CLIMATE, planQuerySchema, planQueryString, queryValues, splitMeanValues, type PlanRequest, type QueryValues } from '$lib/schema/plan';
 import { fieldErrors, type FieldErrors } from '$lib/schema/form';
 import { formatDay } from '$lib/plan-text';
+import { byteCache } from './byte-cache';
 import { planCalendar, type CalendarFile } from './calendar';
 import { UserFacingError } from './errors';
 import { defaultClimateSlug, defaultCultivarSlug, type CatalogueSnapshot } from './catalogue/snapshot';
@@ -51,15 +53,26 @@ export function previewPlan(request: PlanRequest, catalogue: CatalogueSnapshot):
 }
 
 /**
+ * Calendars already written, keyed by everything that goes into one. Writing the iCalendar text
+ * costs tens of milliseconds (the plan itself about one), so a public URL fetched again, by a
+ * subscribed calendar or by someone hammering it, is served from here. 32 MiB holds thousands.
+ */
+export const calendarCache = byteCache(32 * 1024 * 1024);
+
+/**
  * The preview as a calendar. Its identity is the plant (cultivar and planting day), not the
  * climate or logged milestones, so refining those later updates the same events.
  */
 export function previewCalendar(request: PlanRequest, catalogue: CatalogueSnapshot, origin?: string): CalendarFile {
-	const { cultivar, plan } = previewPlan(request, catalogue);
-	const ics = planCalendar(plan, {
-		identity: `preview|${request.cultivar}|${request.plantedOn}`,
-		name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
-		...(origin ? { origin } : {})
+	// The engine's whole input (cultivar parameters, climate, fertilizer…) is the key: an owner's edit to a cultivar makes a new calendar.
+	const key = createHash('sha256').update(JSON.stringify([toPlanInput(request, catalogue), origin ?? null])).digest('base64url');
+	const ics = calendarCache.through(key, () => {
+		const { cultivar, plan } = previewPlan(request, catalogue);
+		return planCalendar(plan, {
+			identity: `preview|${request.cultivar}|${request.plantedOn}`,
+			name: `${cultivar.name} planted ${formatDay(request.plantedOn)} · Bunchline`,
+			...(origin ? { origin } : {})
+		});
 	});
 	return { filename: `bunchline-${request.cultivar}-${request.plantedOn}.ics`, ics };
 }

@@ -9,7 +9,8 @@ import type { Actions, PageServerLoad } from './$types';
 // Public: the sign-in page itself.
 export const load: PageServerLoad = ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next'), HOME_FOR[locals.user.role]));
-	return { next: url.searchParams.get('next') ?? '', reset: url.searchParams.get('reset') === 'done', verified: url.searchParams.get('verified') === '1' };
+	// Only a safe destination is carried into the form's own action (ASVS 3.7.2).
+	return { next: safeNext(url.searchParams.get('next'), ''), reset: url.searchParams.get('reset') === 'done', verified: url.searchParams.get('verified') === '1' };
 };
 
 export const actions: Actions = {
@@ -21,8 +22,8 @@ export const actions: Actions = {
 		redirect(303, safeNext(url.searchParams.get('next'), HOME_FOR[user.role]));
 	},
 	// Public: a new verification link for an account that has not confirmed its e-mail.
-	resend: async ({ request }) => {
-		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.resendVerification(d.email));
+	resend: async ({ request, getClientAddress }) => {
+		const { failure } = await runForm(request, resetRequestSchema, (d) => accounts.resendVerification(d.email, getClientAddress()));
 		return failure ?? { resent: true };
 	}
 };

@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import { acceptInviteSchema, signUpSchema, tokenField } from '$lib/schema/auth';
-import { accounts } from '$lib/server/accounts/service';
+import { accounts, INVITATION_STATE_TEXT } from '$lib/server/accounts/service';
 import { startSession } from '$lib/server/auth';
 import { runForm } from '$lib/server/forms';
 import { HOME_FOR } from '$lib/nav';
@@ -10,8 +10,10 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async ({ url }) => {
 	const token = url.searchParams.get('invite');
 	if (!token) return { invite: null };
-	const inv = tokenField.safeParse(token).success ? await accounts.findInvitation(token) : undefined;
-	return { invite: inv ? { token, email: inv.email, role: inv.role } : { token, expired: true as const } };
+	const found = tokenField.safeParse(token).success ? await accounts.invitationState(token) : ({ state: 'unknown' } as const);
+	if (found.state === 'live') return { invite: { token, email: found.email, role: found.role } };
+	// A used, replaced or expired link says which, and what to do instead.
+	return { invite: { token, closed: INVITATION_STATE_TEXT[found.state] } };
 };
 
 export const actions: Actions = {
@@ -21,8 +23,8 @@ export const actions: Actions = {
 		return failure ?? { sentTo: result.email };
 	},
 	// Public: the invitation token is the credential.
-	accept: async ({ request, cookies }) => {
-		const { failure, result: user } = await runForm(request, acceptInviteSchema, (data) => accounts.acceptInvitation(data));
+	accept: async ({ request, cookies, getClientAddress }) => {
+		const { failure, result: user } = await runForm(request, acceptInviteSchema, (data) => accounts.acceptInvitation(data, getClientAddress()));
 		if (failure) return failure;
 		await startSession(cookies, user.id);
 		redirect(303, HOME_FOR[user.role]);

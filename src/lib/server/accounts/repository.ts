@@ -1,11 +1,15 @@
-import { and, asc, count, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, count, eq, gt, inArray, isNull } from 'drizzle-orm';
 import { db } from '../db';
 import { emailTokens, invitations, users } from '../db/schema';
-import type { Role } from '../../schema/auth';
+import { TEAM_ROLES, type Role } from '../../schema/auth';
 
 export type UserRow = typeof users.$inferSelect;
+export type InvitationRow = typeof invitations.$inferSelect;
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 type Conn = typeof db | Tx;
+export type TokenPurpose = 'verify-email' | 'reset-password';
+
+const teamOnly = inArray(users.role, [...TEAM_ROLES]);
 
 export const accountsRepository = {
 	transaction: <T>(fn: (tx: Tx) => Promise<T>) => db.transaction(fn),
@@ -22,11 +26,12 @@ export const accountsRepository = {
 	updateUser: (id: number, values: Partial<Pick<UserRow, 'passwordHash' | 'role' | 'emailVerifiedAt' | 'name' | 'units'>>, c: Conn = db) =>
 		c.update(users).set(values).where(eq(users.id, id)),
 
-	listUsers: (limit: number, offset: number) =>
+	/** The nursery's team (owners and staff), in an order a role change does not disturb. */
+	listTeam: (limit: number, offset: number) =>
 		db.select({ id: users.id, email: users.email, name: users.name, role: users.role, emailVerifiedAt: users.emailVerifiedAt })
-			.from(users).orderBy(asc(users.role), asc(users.email)).limit(limit).offset(offset),
+			.from(users).where(teamOnly).orderBy(asc(users.name), asc(users.id)).limit(limit).offset(offset),
 
-	countUsers: async () => (await db.select({ n: count() }).from(users))[0]?.n ?? 0,
+	countTeam: async () => (await db.select({ n: count() }).from(users).where(teamOnly))[0]?.n ?? 0,
 
 	countByRole: () => db.select({ role: users.role, n: count() }).from(users).groupBy(users.role),
 
@@ -35,8 +40,12 @@ export const accountsRepository = {
 
 	insertToken: (values: typeof emailTokens.$inferInsert, c: Conn = db) => c.insert(emailTokens).values(values),
 
+	/** A live token of that purpose, without using it up (the cheap check before any expensive work). */
+	findLiveToken: async (tokenHash: string, purpose: TokenPurpose, now: Date) =>
+		(await db.select().from(emailTokens).where(and(eq(emailTokens.tokenHash, tokenHash), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt), gt(emailTokens.expiresAt, now))))[0],
+
 	/** Marks a live token used and returns it; a used or expired token returns nothing. */
-	consumeToken: async (tokenHash: string, purpose: 'verify-email' | 'reset-password', now: Date, c: Conn = db) =>
+	consumeToken: async (tokenHash: string, purpose: TokenPurpose, now: Date, c: Conn = db) =>
 		(
 			await c
 				.update(emailTokens)
@@ -46,17 +55,46 @@ export const accountsRepository = {
 		)[0],
 
 	/** Every still-open link of that purpose for the user stops working. */
-	expireTokens: (userId: number, purpose: 'verify-email' | 'reset-password', now: Date, c: Conn = db) =>
+	expireTokens: (userId: number, purpose: TokenPurpose, now: Date, c: Conn = db) =>
 		c.update(emailTokens).set({ usedAt: now }).where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt))),
 
-	insertInvitation: (values: typeof invitations.$inferInsert) => db.insert(invitations).values(values),
+	/** Pending invitations to the address give way to the new one, in one transaction. */
+	replaceInvitation: (values: typeof invitations.$inferInsert, now: Date) =>
+		db.transaction(async (tx) => {
+			await tx
+				.update(invitations)
+				.set({ replacedAt: now })
+				.where(and(eq(invitations.email, values.email), isNull(invitations.acceptedAt), isNull(invitations.replacedAt)));
+			return (await tx.insert(invitations).values(values).returning())[0];
+		}),
 
-	findLiveInvitation: async (tokenHash: string, now: Date, c: Conn = db) =>
-		(await c.select().from(invitations).where(and(eq(invitations.tokenHash, tokenHash), isNull(invitations.acceptedAt), gt(invitations.expiresAt, now))))[0],
+	findInvitation: async (tokenHash: string, c: Conn = db) => (await c.select().from(invitations).where(eq(invitations.tokenHash, tokenHash)))[0],
 
-	markInvitationAccepted: (id: number, now: Date, c: Conn = db) => c.update(invitations).set({ acceptedAt: now }).where(eq(invitations.id, id)),
+	findInvitationById: async (id: number) => (await db.select().from(invitations).where(eq(invitations.id, id)))[0],
+
+	/** Gives a still-pending invitation its e-mailed token; false when it was replaced or used meanwhile. */
+	setInvitationToken: async (id: number, tokenHash: string) =>
+		(
+			await db
+				.update(invitations)
+				.set({ tokenHash })
+				.where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.replacedAt)))
+				.returning({ id: invitations.id })
+		).length > 0,
+
+	/** Marks a pending invitation accepted; false if someone else's request got there first. */
+	markInvitationAccepted: async (id: number, now: Date, c: Conn = db) =>
+		(
+			await c
+				.update(invitations)
+				.set({ acceptedAt: now })
+				.where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.replacedAt), gt(invitations.expiresAt, now)))
+				.returning({ id: invitations.id })
+		).length > 0,
 
 	listOpenInvitations: (now: Date) =>
 		db.select({ id: invitations.id, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt })
-			.from(invitations).where(and(isNull(invitations.acceptedAt), gt(invitations.expiresAt, now))).orderBy(asc(invitations.email))
+			.from(invitations)
+			.where(and(isNull(invitations.acceptedAt), isNull(invitations.replacedAt), gt(invitations.expiresAt, now)))
+			.orderBy(asc(invitations.email))
 };

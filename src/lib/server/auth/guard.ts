@@ -1,5 +1,5 @@
 import { error, redirect } from '@sveltejs/kit';
-import type { Role } from '../../schema/auth';
+import { roleInSentence, TEAM_ROLES, type Role } from '../../schema/auth';
 
 export type AuthUser = NonNullable<App.Locals['user']>;
 
@@ -22,9 +22,16 @@ export function requireUser(event: GuardEvent, ...roles: Role[]): AuthUser {
 		redirect(303, `/login?next=${encodeURIComponent(event.url.pathname + event.url.search)}`);
 	}
 	if (roles.length > 0 && !roles.includes(user.role)) {
-		error(403, 'This page is for nursery staff only');
+		error(403, refusalFor(roles));
 	}
 	return user;
 }
 
-export const STAFF_ROLES: Role[] = ['owner', 'staff'];
+/** Says who the page is for, so a refused person knows whom to ask. */
+export function refusalFor(roles: readonly Role[]): string {
+	if (roles.length === TEAM_ROLES.length && TEAM_ROLES.every((r) => roles.includes(r))) return 'This page is for the nursery team only';
+	if (roles.length === 1 && roles[0] === 'owner') return "This page is for the nursery's owner only";
+	return `This page is for ${roles.map((r) => roleInSentence(r)).join(' and ')} accounts only`;
+}
+
+export const STAFF_ROLES: Role[] = [...TEAM_ROLES];

@@ -3,6 +3,13 @@ import { Lucia, TimeSpan } from 'lucia';
 import { config } from '../config';
 import { db } from '../db';
 import { sessions, users } from '../db/schema';
+import type { Role } from '../../schema/auth';
+
+/**
+ * Over https the cookie carries the __Host- prefix: browsers then insist on Secure, Path=/ and no
+ * Domain, so a sibling subdomain cannot plant or overwrite it (ASVS 3.3.1).
+ */
+export const SESSION_COOKIE = config.secureCookies ? '__Host-bunchline_session' : 'bunchline_session';
 
 export const lucia = new Lucia(new DrizzlePostgreSQLAdapter(
 		db,
@@ -12,7 +19,7 @@ export const lucia = new Lucia(new DrizzlePostgreSQLAdapter(
 	), {
 	sessionExpiresIn: new TimeSpan(14, 'd'),
 	sessionCookie: {
-		name: 'bunchline_session',
+		name: SESSION_COOKIE,
 		attributes: { secure: config.secureCookies, sameSite: 'lax' }
 	},
 	getUserAttributes: (a) => ({
@@ -38,7 +45,7 @@ declare module 'lucia' {
 		DatabaseUserAttributes: {
 			email: string;
 			name: string;
-			role: 'owner' | 'staff' | 'gardener';
+			role: Role;
 			units: 'metric' | 'imperial';
 			emailVerifiedAt: Date | null;
 		};

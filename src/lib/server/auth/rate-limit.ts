@@ -8,23 +8,41 @@ export interface Limit {
 }
 
 /**
- * Failed sign-ins per e-mail (guessing one account) and per address (spraying many), mails to one
- * address (inbox flooding) and sign-ups per address. Counted in PostgreSQL so every instance shares them.
+ * Counted in PostgreSQL so every app instance shares them. Hard limits (429) only ever fall on the
+ * requester's own address or session; what an account suffers from strangers is a delay, never a
+ * refusal (see signInDelayMs), and mail limits are counted on the address typed, whether or not an
+ * account uses it, so a refusal reveals nothing.
  */
 export const LIMITS = {
-	signInPerEmail: { limit: 5, windowMs: 15 * MINUTE },
+	/** Sign-in attempts from one address (password spraying). */
 	signInPerAddress: { limit: 30, windowMs: 15 * MINUTE },
-	mailsPerAddressee: { limit: 5, windowMs: 60 * MINUTE },
-	signUpsPerAddress: { limit: 20, windowMs: 60 * MINUTE }
+	/** Failed sign-ins on one account before each new attempt is slowed down. */
+	signInFreeFailures: { limit: 5, windowMs: 15 * MINUTE },
+	/** Links e-mailed to one address, whoever asks (inbox flooding). */
+	mailsPerAddressee: { limit: 10, windowMs: 60 * MINUTE },
+	/** Links one requester may have sent to one address: a stranger uses up their own share, not the owner's. */
+	mailsPerRequesterAndAddressee: { limit: 3, windowMs: 60 * MINUTE },
+	/** Sign-ups, invitation acceptances, resets and password changes from one address: each costs a 19 MiB hash. */
+	newPasswordsPerAddress: { limit: 20, windowMs: 60 * MINUTE },
+	/** Current-password checks for one signed-in account (a stolen session guessing the password). */
+	currentPasswordChecksPerAccount: { limit: 5, windowMs: 15 * MINUTE }
 } as const satisfies Record<string, Limit>;
 
-export const SIGN_IN_LIMITS = { email: LIMITS.signInPerEmail.limit, ip: LIMITS.signInPerAddress.limit } as const;
+/** The slow-down grows with failures: nothing for the first five, then 0.25 s doubling up to 5 s. */
+export const SIGN_IN_DELAY = { firstMs: 250, maxMs: 5000 } as const;
+
+export function signInDelayMs(recentFailures: number): number {
+	const over = recentFailures - LIMITS.signInFreeFailures.limit;
+	return over < 0 ? 0 : Math.min(SIGN_IN_DELAY.maxMs, SIGN_IN_DELAY.firstMs * 2 ** over);
+}
 
 export const keys = {
-	signInEmail: (email: string) => `email:${email}`,
+	signInFailures: (email: string) => `email:${email}`,
 	signInAddress: (ip: string) => `ip:${ip}`,
 	mailTo: (email: string) => `mail:${email}`,
-	signUpAddress: (ip: string) => `signup-ip:${ip}`
+	mailFromTo: (ip: string, email: string) => `mail:${ip}:${email}`,
+	newPassword: (ip: string) => `new-password:${ip}`,
+	currentPassword: (userId: number) => `current-password:${userId}`
 };
 
 const KEEP_ROWS_MS = 24 * 60 * MINUTE;
@@ -46,10 +64,21 @@ export async function consume(key: string, rule: Limit, now = new Date()): Promi
 	return { allowed: n <= rule.limit, id };
 }
 
-/** A successful sign-in: its own attempts do not count, and earlier failures on the account are forgiven. */
-export async function forgive(attempts: Attempt[], email: string): Promise<void> {
-	await repo.deleteIds(attempts.map((a) => a.id));
-	await repo.deleteKey(keys.signInEmail(email));
+/** Takes back recorded attempts (a refused request must not use up a share it never got to use). */
+export const release = (attempts: Attempt[]) => repo.deleteIds(attempts.map((a) => a.id));
+
+/** Consumes every rule or none: a request refused by one limit leaves the others' counts as they were. */
+export async function consumeAll(rules: [string, Limit][], now = new Date()): Promise<boolean> {
+	const attempts = await Promise.all(rules.map(([key, rule]) => consume(key, rule, now)));
+	if (attempts.every((a) => a.allowed)) return true;
+	await release(attempts);
+	return false;
 }
 
-export const clearSignInFailures = (email: string) => repo.deleteKey(keys.signInEmail(email));
+/** Failed sign-ins on the account within the window. */
+export const recentSignInFailures = (email: string, now = new Date()) =>
+	repo.countSince(keys.signInFailures(email), new Date(now.getTime() - LIMITS.signInFreeFailures.windowMs));
+
+export const recordSignInFailure = (email: string) => repo.insert(keys.signInFailures(email));
+
+export const clearSignInFailures = (email: string) => repo.deleteKey(keys.signInFailures(email));

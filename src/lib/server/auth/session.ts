@@ -23,7 +23,13 @@ export async function validateSessionCookie(
 	return { user, session };
 }
 
+/**
+ * A new session always replaces the one the browser held (ASVS 7.2.4): signing in again, or as
+ * someone else, ends the earlier session instead of leaving it valid.
+ */
 export async function startSession(cookies: Cookies, userId: number): Promise<void> {
+	const previous = cookies.get(lucia.sessionCookieName);
+	if (previous) await lucia.invalidateSession(previous);
 	const session = await lucia.createSession(userId, { createdAt: new Date() });
 	setCookie(cookies, lucia.createSessionCookie(session.id));
 }
@@ -36,4 +42,9 @@ export async function endSession(cookies: Cookies, sessionId: string): Promise<v
 /** Every session of the user ends, e.g. when the password changes. */
 export function endAllSessions(userId: number): Promise<void> {
 	return lucia.invalidateUserSessions(userId);
+}
+
+/** Every session of the user but the one in use, e.g. after a password change made in it. */
+export async function endOtherSessions(userId: number, keepSessionId: string): Promise<void> {
+	for (const s of await lucia.getUserSessions(userId)) if (s.id !== keepSessionId) await lucia.invalidateSession(s.id);
 }

@@ -7,4 +7,6 @@ const client = postgres(config.databaseUrl, { max: 10, onnotice: () => {} });
 export const db = drizzle(client, { schema });
 export type Db = typeof db;
 export { schema };
-export const closeDb = () => client.end({ timeout: 5 });
+
+/** Ends the pool once running queries finish (at most `timeoutS` seconds), so the process can exit. */
+export const closeDb = (timeoutS = 5) => client.end({ timeout: timeoutS });

@@ -1,7 +1,8 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { ROLES } from '../../../schema/auth';
 import { UNITS } from '../../../care/vocabulary';
 
-export const roleEnum = pgEnum('role', ['owner', 'staff', 'gardener']);
+export const roleEnum = pgEnum('role', ROLES);
 export const tokenPurposeEnum = pgEnum('token_purpose', ['verify-email', 'reset-password']);
 
 import { createdAt } from './columns';
@@ -63,6 +64,8 @@ export const invitations = pgTable(
 			.references(() => users.id, { onDelete: 'cascade' }),
 		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
 		acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+		/** Set when a newer invitation to the same address took this one's place; its link then says so. */
+		replacedAt: timestamp('replaced_at', { withTimezone: true }),
 		createdAt: createdAt()
 	},
 	(t) => [uniqueIndex('invitations_hash_key').on(t.tokenHash), index('invitations_email_idx').on(t.email)]

@@ -1,10 +1,10 @@
-// Whatever arrives, the plan preview answers 200 with a plan or 400 with the error shape: never a 500.
+// ASVS 1.2.5 / 2.2.1: whatever arrives at the public API, the answer is 200 with a plan or 400 with the error shape, never a 500.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { climates, cultivars } from '$lib/care';
-import { POST } from '../../../src/routes/api/v1/plan-preview/+server';
-import { GET as GET_ICS } from '../../../src/routes/api/v1/plan-preview.ics/+server';
-import { call, postJson, validBody } from './helpers';
+import { POST } from '../../src/routes/api/v1/plan-preview/+server';
+import { GET as GET_ICS } from '../../src/routes/api/v1/plan-preview.ics/+server';
+import { call, postJson, validBody } from '../integration/api/helpers';
 
 fc.configureGlobal({ seed: process.env.API_FUZZ_SEED === "random" ? Date.now() : 20261202 });
 

@@ -1,4 +1,5 @@
-// Every protected page answers 403 to a gardener and sends a signed-out visitor to sign-in.
+// The role × route matrix (ASVS 8.2.1, 8.3.1): every protected page answers 403 to the wrong role
+// and sends a signed-out visitor to sign-in; the guard runs on the server for pages and actions.
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -23,7 +24,7 @@ const GARDENER_ONLY = ['/ask'];
 /** Pages of one gardener's own things: 404 to everyone but their owner and staff, signed out too. */
 const ASKER_ONLY = ['/questions/[id]'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
-const SIGNED_IN = ['/plants', '/settings'];
+const SIGNED_IN = ['/plants', '/settings', '/settings/account'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
 	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
@@ -214,6 +215,11 @@ describe('staff', () => {
 		expect((await get(`/guides/role-guard-draft`)).status).toBe(404);
 	});
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	it('a refused owner page says it is for the owner, not for staff', async () => {
+		const page = await (await get('/nursery/team', staff)).text();
+		expect(page).toContain("for the nursery's owner only");
+		expect(page).not.toContain('for nursery staff only');
+	});
 });
 
 describe('the owner', () => {

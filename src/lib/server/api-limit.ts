@@ -1,0 +1,49 @@
+/**
+ * One limit for every /api/ route, per client address: a token bucket that refills evenly over a
+ * minute. It guards this instance's CPU (a calendar costs tens of milliseconds to write the first
+ * time), so each instance counts in its own memory: behind a load balancer with n instances an
+ * address gets up to n times the budget, which is what n instances can serve. Limits that protect
+ * accounts (sign-in, mail, sign-up) are different: they are counted in PostgreSQL, shared by all.
+ */
+import { LRUCache } from 'lru-cache';
+import type { RequestEvent } from '@sveltejs/kit';
+import { apiError } from './api';
+import { config } from './config';
+
+interface Bucket {
+	tokens: number;
+	at: number;
+}
+
+/** The least recently seen addresses are forgotten first, so memory stays bounded under a spray of addresses. */
+const TRACKED_ADDRESSES = 50_000;
+
+export function tokenBucketLimiter(perMinute: number, capacity = perMinute, max = TRACKED_ADDRESSES) {
+	const buckets = new LRUCache<string, Bucket>({ max });
+	const perMs = perMinute / 60_000;
+	return {
+		/** Takes one token; answers how many seconds to wait when there is none. */
+		take(address: string, now = Date.now()): { allowed: true } | { allowed: false; retryAfterS: number } {
+			const b = buckets.get(address) ?? { tokens: capacity, at: now };
+			const tokens = Math.min(capacity, b.tokens + (now - b.at) * perMs);
+			if (tokens < 1) {
+				buckets.set(address, { tokens, at: now });
+				return { allowed: false, retryAfterS: Math.ceil((1 - tokens) / perMs / 1000) };
+			}
+			buckets.set(address, { tokens: tokens - 1, at: now });
+			return { allowed: true };
+		}
+	};
+}
+
+const apiLimiter = tokenBucketLimiter(config.apiRequestsPerMinute);
+
+/** A 429 in the API's error shape when the address is over its budget; null otherwise. */
+export function publicApiLimit(event: Pick<RequestEvent, 'url' | 'getClientAddress'>): Response | null {
+	if (!event.url.pathname.startsWith('/api/')) return null;
+	const verdict = apiLimiter.take(event.getClientAddress());
+	if (verdict.allowed) return null;
+	const response = apiError('Too many requests from this address', [{ path: [], message: `Wait ${verdict.retryAfterS} s and try again` }], 429);
+	response.headers.set('retry-after', String(verdict.retryAfterS));
+	return response;
+}
