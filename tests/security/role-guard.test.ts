@@ -20,10 +20,21 @@ const STAFF_ONLY = [
 	'/nursery/questions',
 	'/nursery/questions/[id]'
 ];
+const CATALOGUE_PAGES = ['/nursery/cultivars', '/nursery/cultivars/new', '/nursery/cultivars/grand-nain', '/nursery/climates', '/nursery/settings'];
+/** Owner-only form actions: gardeners and staff get 403 and nothing is written. */
+const OWNER_ACTIONS = [
+	'/nursery/cultivars/new',
+	'/nursery/cultivars/grand-nain?/save',
+	'/nursery/cultivars/grand-nain?/retire',
+	'/nursery/climates',
+	'/nursery/climates/grand-nain?/save',
+	'/nursery/climates/grand-nain?/delete',
+	'/nursery/settings'
+];
 const GARDENER_ONLY = ['/ask'];
 /** Pages of one gardener's own things: 404 to everyone but their owner and staff, signed out too. */
 const ASKER_ONLY = ['/questions/[id]'];
-const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml'];
+const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml', ...CATALOGUE_PAGES, '/nursery/climates/grand-nain'];
 const SIGNED_IN = ['/plants', '/settings', '/settings/account'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
@@ -72,7 +83,7 @@ function guardedRoutes(dir = join(process.cwd(), 'src/routes')): string[] {
 	});
 }
 
-const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[number]', '1').replace(/^(\/api\/v1\/[\w-]+\/)\[id\]/, '$11');
+const asTested = (route: string) => route.replace('[file]', 'x.eml').replace('[number]', '1').replace('[slug]', 'grand-nain').replace(/^(\/api\/v1\/[\w-]+\/)\[id\]/, '$11');
 const SIGN_OUT = '/logout';
 
 let gardener: string;
@@ -136,7 +147,7 @@ describe('a gardener', () => {
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY]) {
 		it(`GET ${path} is 403`, async () => expect((await get(path, gardener)).status).toBe(403));
 	}
-	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', '/nursery/guides/new', '/nursery/guides/[id]?/save', '/nursery/guides/[id]?/publish', '/nursery/guides/[id]?/restore', '/nursery/questions/[id]?/answer', '/nursery/questions/[id]?/claim', '/nursery/questions/[id]?/state', '/nursery/questions/[id]?/guide']) {
+	for (const action of ['/nursery/team?/invite', '/nursery/team?/role', '/nursery/guides/new', '/nursery/guides/[id]?/save', '/nursery/guides/[id]?/publish', '/nursery/guides/[id]?/restore', '/nursery/questions/[id]?/answer', '/nursery/questions/[id]?/claim', '/nursery/questions/[id]?/state', '/nursery/questions/[id]?/guide', ...OWNER_ACTIONS]) {
 		it(`POST ${action} is 403`, async () => {
 			const res = await post(action, gardener);
 			expect(res.status).toBe(403);
@@ -215,6 +226,7 @@ describe('staff', () => {
 		expect((await get(`/guides/role-guard-draft`)).status).toBe(404);
 	});
 	for (const path of OWNER_ONLY) it(`GET ${path} is 403`, async () => expect((await get(path, staff)).status).toBe(403));
+	for (const action of OWNER_ACTIONS) it(`POST ${action} is 403`, async () => expect((await post(action, staff)).status).toBe(403));
 	it('a refused owner page says it is for the owner, not for staff', async () => {
 		const page = await (await get('/nursery/team', staff)).text();
 		expect(page).toContain("for the nursery's owner only");
@@ -223,7 +235,7 @@ describe('staff', () => {
 });
 
 describe('the owner', () => {
-	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN]) {
+	for (const path of [...STAFF_ONLY, '/nursery', '/nursery/team', '/dev/mail', ...SIGNED_IN, ...CATALOGUE_PAGES]) {
 		it(`GET ${path} is 200`, async () => expect((await get(path, owner)).status).toBe(200));
 	}
 });

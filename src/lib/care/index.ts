@@ -12,7 +12,14 @@ export {
 	climates,
 	findClimate,
 	referenceClimate,
-	referenceClimateSlug
+	referenceClimateSlug,
+	CULTIVAR_PARAMETER_BOUNDS,
+	CULTIVAR_PARAMETER_NAMES,
+	CULTIVAR_GROUPS,
+	SIZE_CLASSES,
+	FEEDING_SETTING_BOUNDS,
+	type CultivarParameterName,
+	type ParameterBound
 } from './catalogue';
 export { defaultFeeding, rationFor, canLabel } from './feeding';
 export { toUnits, GRAMS_PER_POUND, GRAMS_PER_OUNCE, METRES_PER_FOOT } from './units';
