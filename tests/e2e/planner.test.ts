@@ -20,6 +20,12 @@ describe('the year planner', () => {
 			await page.getByRole('button', { name: 'Show plan' }).click();
 			await page.waitForURL(/plantedOn=2027-03-15/);
 			await expect.poll(() => page.locator('svg[role="img"]').count()).toBeGreaterThan(0);
+			// The plan starts below the fold: focus and the view move to it, and screen readers hear it is ready.
+			await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe('plan-title');
+			const heading = await page.locator('#plan-title').boundingBox();
+			expect(heading!.y).toBeGreaterThanOrEqual(0);
+			expect(heading!.y).toBeLessThan(viewport.height / 2);
+			await expect.poll(() => page.getByRole('status').textContent()).toMatch(/^Plan ready: .+, planted 15 Mar 2027, \d+ steps\.$/);
 			expect(await page.getByRole('table').count()).toBeGreaterThan(0);
 			await expectAccessible(page);
 
@@ -31,6 +37,31 @@ describe('the year planner', () => {
 			expect(cal.getAllSubcomponents('vevent').length).toBeGreaterThan(10);
 		});
 	}
+
+	it('a cool garden’s plan says why it is long, lists the steady feeding once, and prints as a clean sheet of at most two pages', async () => {
+		const page = await (await newContext(browser)).newPage();
+		await page.goto('/planner?cultivar=grand-nain&plantedOn=2027-03-15&ageAtPlantingWeeks=12&climate=southern-california-coast');
+		expect(await page.getByTestId('long-plan-note').textContent()).toMatch(/cooler than bananas like/);
+		// Runs of the same monthly feeding are one row each; the nursery's restricted months (other tests
+		// may set some) keep rows of their own, so count feedings rather than expect a fixed row count.
+		const rows = await page.getByRole('region', { name: /Feeding: amounts are for the whole mat/ }).locator('tbody tr').allTextContents();
+		const feedings = rows.reduce((n, row) => n + Number(/(\d+) feedings/.exec(row)?.[1] ?? 1), 0);
+		expect(feedings).toBeGreaterThan(40);
+		expect(rows.length).toBeLessThan(feedings / 3);
+		expect(rows.some((row) => /^\s*Monthly, .+ to .+\d+ feedings/.test(row))).toBe(true);
+		await expectAccessible(page);
+
+		await page.emulateMedia({ media: 'print' });
+		for (const hidden of [page.locator('header').first(), page.getByRole('button', { name: 'Show plan' }), page.getByRole('link', { name: /Download calendar/ })]) {
+			expect(await hidden.isVisible()).toBe(false);
+		}
+		expect(await page.locator('#plan-title').isVisible()).toBe(true);
+		expect(await page.locator('svg[role="img"]').isVisible()).toBe(true);
+		const pdf = (await page.pdf({ format: 'A4' })).toString('latin1');
+		const pages = pdf.match(/\/Type\s*\/Page(?!s)/g)?.length ?? 0;
+		expect(pages).toBeGreaterThanOrEqual(1);
+		expect(pages).toBeLessThanOrEqual(2);
+	});
 
 	it('shows the reason beside the field for bad input', async () => {
 		const page = await (await newContext(browser)).newPage();

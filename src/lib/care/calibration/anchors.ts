@@ -48,8 +48,12 @@ export interface Check {
 	measure: Measure;
 	/** The months (1–12) of planting, or of flowering for `shooting-to-harvest`. */
 	months: readonly number[];
-	/** `each`: every month's result must be inside; `mean`: their mean (a typical cycle). */
-	statistic: 'each' | 'mean';
+	/**
+	 * `each`: every month's likely result must be inside; `mean`: their mean (a typical cycle);
+	 * `covers`: the plan's windows over the months must span the whole published range (where the
+	 * sources disagree, the plan should show the spread rather than pick a point).
+	 */
+	statistic: 'each' | 'mean' | 'covers';
 	/** The figure as published. */
 	figure: string;
 	/** The range the engine must land in, in the measure's unit. */
@@ -267,6 +271,21 @@ export const checks: readonly Check[] = [
 		range: [15, 24],
 		rangeNote: AS_PUBLISHED,
 		source: CANARIAN
+	},
+	{
+		id: 'tenerife-first-cut-window',
+		place: 'Tenerife, Canary Islands, open air',
+		station: 'santa-cruz-de-tenerife',
+		cultivar: 'grand-nain',
+		measure: 'planting-to-harvest',
+		months: ALL_MONTHS,
+		statistic: 'covers',
+		figure: 'planting to first cut 15–24 months: the plan’s harvest windows should span it',
+		range: [15, 24],
+		rangeNote: AS_PUBLISHED,
+		source: CANARIAN,
+		outsideBecause:
+			'The plan’s windows are a share of the thermal distance from the last known fact (6 % for the plant sold, 4 % more per follower), the same in every climate. They span 17.8–21.8 months here, narrower than the 15–24 the Canarian growers report across the island’s coasts, cultivars and seasons. Widening windows in marginal climates is not done yet.'
 	},
 	{
 		id: 'tenerife-ratoon',

@@ -27,7 +27,7 @@ export interface CheckResult {
 	low: number;
 	high: number;
 	inside: boolean;
-	/** Engine over published, midpoint over midpoint. */
+	/** Engine over published, midpoint over midpoint (for `covers`: window span over published span). */
 	ratio: number;
 }
 
@@ -91,8 +91,13 @@ function samplesFor(check: Check): Sample[] {
 export function runCheck(check: Check): CheckResult {
 	const samples = samplesFor(check);
 	const values = samples.map((s) => s.likely);
-	const [low, high] = check.statistic === 'mean' ? Array(2).fill(values.reduce((a, b) => a + b, 0) / values.length) : [Math.min(...values), Math.max(...values)];
 	const [from, to] = check.range;
+	if (check.statistic === 'covers') {
+		const low = Math.min(...samples.map((s) => s.earliest));
+		const high = Math.max(...samples.map((s) => s.latest));
+		return { check, samples, low, high, inside: low <= from && high >= to, ratio: (high - low) / (to - from) };
+	}
+	const [low, high] = check.statistic === 'mean' ? Array(2).fill(values.reduce((a, b) => a + b, 0) / values.length) : [Math.min(...values), Math.max(...values)];
 	return { check, samples, low, high, inside: low >= from && high <= to, ratio: (low + high) / (from + to) };
 }
 
@@ -123,9 +128,9 @@ export function calibrationTable(results: CheckResult[] = runCalibration()): str
 		const earliest = Math.min(...r.samples.map((s) => s.earliest));
 		const latest = Math.max(...r.samples.map((s) => s.latest));
 		const window = Number.isNaN(earliest) ? '—' : between(earliest, latest, unit);
-		const engine = c.statistic === 'mean' ? `mean ${fixed(r.low, unit)} (${between(Math.min(...r.samples.map((s) => s.likely)), Math.max(...r.samples.map((s) => s.likely)), unit)})` : between(r.low, r.high, unit);
+		const engine = c.statistic === 'covers' ? `windows span ${between(r.low, r.high, unit)}` : c.statistic === 'mean' ? `mean ${fixed(r.low, unit)} (${between(Math.min(...r.samples.map((s) => s.likely)), Math.max(...r.samples.map((s) => s.likely)), unit)})` : between(r.low, r.high, unit);
 		const verdict = r.inside ? 'inside' : c.outsideBecause ? '**outside** (known, see below)' : '**outside**';
-		return `| ${c.place} | ${c.cultivar} | ${MEASURE_NAMES[c.measure]}, ${c.statistic === 'mean' ? 'mean of ' : ''}${monthsText(c.months)} | ${c.figure} | ${c.source} | ${between(c.range[0], c.range[1], unit)} ${unit} (${c.rangeNote}) | ${engine} ${unit} | ${window} | ${r.ratio.toFixed(2)} | ${verdict} |`;
+		return `| ${c.place} | ${c.cultivar} | ${MEASURE_NAMES[c.measure]}, ${c.statistic === 'mean' ? 'mean of ' : c.statistic === 'covers' ? 'windows of ' : ''}${monthsText(c.months)} | ${c.figure} | ${c.source} | ${between(c.range[0], c.range[1], unit)} ${unit} (${c.rangeNote}) | ${engine} ${unit} | ${window} | ${r.ratio.toFixed(2)} | ${verdict} |`;
 	});
 	return [
 		'| place | cultivar | engine measure, months of planting or flowering | published figure | source | range checked | engine, likely | engine, window | ratio | result |',
