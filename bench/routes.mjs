@@ -23,6 +23,8 @@ const dbName = `bunchline_bench_${process.pid}`;
 cluster.createDatabase(dbName);
 const databaseUrl = cluster.url.replace(/\/[^/]+$/, `/${dbName}`);
 await migrateDatabase(databaseUrl);
+// The seed stores plans through the app's modules, which read DATABASE_URL.
+process.env.DATABASE_URL = databaseUrl;
 await seedDemo(databaseUrl);
 
 const origin = `http://127.0.0.1:${APP_PORT}`;

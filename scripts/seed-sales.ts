@@ -23,7 +23,11 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 
 const daysFrom = (iso: string, days: number) => formatIsoDate(parseIsoDate(iso) + days);
 
-export async function seedSales(db: AnyDb, today = new Date().toISOString().slice(0, 10)): Promise<void> {
+/**
+ * `storePlan` stores a claimed plant's plan, as a claim in the app does (src/lib/server/sale-side.ts),
+ * so the demo gardeners' plants have their pages, feeds and reminders from the first start.
+ */
+export async function seedSales(db: AnyDb, storePlan: (plantId: number) => Promise<void>, today = new Date().toISOString().slice(0, 10)): Promise<void> {
 	if ((await db.select({ n: count() }).from(stockBatches))[0].n > 0) return;
 	const emails = new Map((await db.select().from(users)).map((u) => [u.email, u.id]));
 	const person = (role: string, i = 0) => emails.get(DEMO_ACCOUNTS.filter((a) => a.role === role)[i].email)!;
@@ -37,7 +41,8 @@ export async function seedSales(db: AnyDb, today = new Date().toISOString().slic
 	const claims = createClaimService({
 		db,
 		consume: async () => ({ allowed: true }),
-		climateBySlug: async (slug) => (await db.select({ id: climateProfiles.id }).from(climateProfiles).where(eq(climateProfiles.slug, slug)))[0]
+		climateBySlug: async (slug) => (await db.select({ id: climateProfiles.id }).from(climateProfiles).where(eq(climateProfiles.slug, slug)))[0],
+		afterClaim: storePlan
 	});
 
 	// The nursery's usual prices, filled in on the stall (in the nursery's currency, cents).

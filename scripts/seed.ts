@@ -2,7 +2,7 @@
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { isMainModule } from './main-module.mjs';
-import { environmentOrExit } from '../src/lib/server/env.js';
+import { environmentOrExit, parseEnvironment } from '../src/lib/server/env.js';
 import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
@@ -10,6 +10,11 @@ import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
 import { seedSales } from './seed-sales';
 
 export async function seedDemo(url: string): Promise<void> {
+	// Plans are stored through the app's own modules, which connect to DATABASE_URL: seed that database.
+	if (parseEnvironment().databaseUrl !== url) throw new Error(`seedDemo(${url}): set DATABASE_URL to the database being seeded`);
+	const { regeneratePlan } = await import('../src/lib/server/plans/regenerate');
+	const { db: appDb } = await import('../src/lib/server/db');
+	const storePlan = async (plantId: number) => void (await appDb.transaction((tx) => regeneratePlan(tx, plantId, { kind: 'created' })));
 	const client = postgres(url, { max: 1, onnotice: () => {} });
 	const db = drizzle(client);
 	try {
@@ -33,7 +38,7 @@ export async function seedDemo(url: string): Promise<void> {
 			.insert(users)
 			.values(DEMO_ACCOUNTS.map((a) => ({ ...a, role: a.role as 'owner' | 'staff' | 'gardener', passwordHash, emailVerifiedAt: now })))
 			.onConflictDoNothing({ target: users.email });
-		await seedSales(db);
+		await seedSales(db, storePlan);
 	} finally {
 		await client.end();
 	}
@@ -42,5 +47,7 @@ export async function seedDemo(url: string): Promise<void> {
 if (isMainModule(import.meta.url)) {
 	const url = environmentOrExit().databaseUrl;
 	await seedDemo(url);
+	const { closeDb } = await import('../src/lib/server/db');
+	await closeDb();
 	console.log('Demo scenario seeded');
 }

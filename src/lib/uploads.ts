@@ -3,8 +3,12 @@
  * forms that offer a file input. One source: pages quote these limits, the server enforces them.
  */
 
-/** What an upload is for; the route that serves it asks the purpose's owner who may see it. */
-export const UPLOAD_PURPOSES = ['milestone-photo'] as const;
+/**
+ * What an upload is for; the route that serves it asks the purpose's owner who may see it:
+ * a milestone's plant, a question (its photos and its answers' photos), or the owner's guides
+ * (an image in a guide's Markdown).
+ */
+export const UPLOAD_PURPOSES = ['milestone-photo', 'question-photo', 'guide-image'] as const;
 export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
 
 /** Types accepted, decided from the file's bytes (never its name or the browser's word). */

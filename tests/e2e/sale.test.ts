@@ -102,6 +102,9 @@ describe('a sale at the stall, claimed by its buyer', () => {
 		await expectAccessible(phone);
 		const card = phone.getByRole('listitem').filter({ hasText: 'Grand Nain' });
 		await expect.poll(() => card.textContent()).toMatch(/Next step.+around \d{1,2} \w{3} \d{4}/);
+		await card.getByRole('link', { name: 'Grand Nain' }).click();
+		await phone.waitForURL(/\/plants\/\d+$/);
+		expect(await phone.getByRole('heading', { level: 1 }).textContent()).toContain('Grand Nain');
 
 		// The code is used now: opening it again says so, with 410.
 		const again = await phone.goto(mailed.pathname);

@@ -39,7 +39,9 @@ const ASKER_ONLY = ['/questions/[id]'];
 const OWNER_ONLY = ['/nursery', '/nursery/team', '/dev/mail', '/dev/mail/x.eml', ...CATALOGUE_PAGES, '/nursery/climates/grand-nain'];
 const SIGNED_IN = ['/plants', '/settings', '/settings/account'];
 /** One record's pages for any signed-in account; who may see which record is tested in plant-access.test.ts. */
-const RECORD_PAGES = ['/plants/1', '/plants/1/log', '/uploads/1/thumbnail'];
+const RECORD_PAGES = ['/plants/1', '/plants/1/log'];
+/** Photos: public only where what they belong to is public, so a signed-out request for any other is 404 (who may see which photo: tests/e2e/board-photos.test.ts). */
+const PHOTOS = ['/uploads/1/thumbnail', '/uploads/1/display'];
 /** JSON endpoints that read the session: signed out 401, wrong role 403 (in the API's error shape). */
 const API: { path: string; method: string; roles: 'staff' | 'owner' | 'signed-in' }[] = [
 	{ path: '/api/v1/stock', method: 'GET', roles: 'staff' },
@@ -132,6 +134,7 @@ describe('coverage', () => {
 
 describe('signed out', () => {
 	for (const path of ASKER_ONLY) it(`GET ${path} of a private question is 404`, async () => expect((await get(path)).status).toBe(404));
+	for (const path of PHOTOS) it(`GET ${path} of a private photo is 404`, async () => expect((await get(path)).status).toBe(404));
 	for (const path of [...STAFF_ONLY, ...OWNER_ONLY, ...SIGNED_IN, ...GARDENER_ONLY, ...RECORD_PAGES, SIGN_OUT]) {
 		it(`GET ${path} redirects to sign-in`, async () => {
 			const res = await get(path);

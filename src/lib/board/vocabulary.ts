@@ -40,6 +40,7 @@ export const BOARD_BOUNDS = {
 	postBody: { min: 1, max: 10_000 },
 	slug: { min: 2, max: 80 },
 	searchQuery: { min: 2, max: 200 },
+	imageAlt: { max: 140 },
 	photosPerQuestion: 4
 } as const;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { lineField } from './fields';
 import { BOARD_BOUNDS, CULTIVAR_GROUPS } from '../board/vocabulary';
 import { GUIDE_STAGES } from '../guides';
 
@@ -50,6 +51,11 @@ export const guideSchema = z.object({
 	replaces: z.string().trim().max(b.slug.max).optional().default('')
 });
 export type GuideInput = z.infer<typeof guideSchema>;
+
+/** An image for a guide's text: its file travels beside these fields; the words stand in for it in screen readers. */
+export const guideImageSchema = z.object({
+	alt: lineField({ required: 'Describe the image in a few words (read aloud to those who cannot see it)', max: b.imageAlt.max, tooLong: `At most ${b.imageAlt.max} characters` })
+});
 
 export const revisionSchema = z.object({ revision: z.coerce.number({ error: 'Choose a revision' }).int().positive('Choose a revision') });
 

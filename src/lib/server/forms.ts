@@ -29,3 +29,6 @@ export async function runFormData<S extends z.ZodType, R>(form: FormData, schema
 		throw e;
 	}
 }
+
+/** The non-empty files a form sent under `name` (a file input left empty sends one empty file). */
+export const filesOf = (form: FormData, name: string): File[] => form.getAll(name).filter((f): f is File => f instanceof File && f.size > 0);

@@ -1,6 +1,6 @@
 /**
  * The job queue: pg-boss 10 on the app's PostgreSQL, for work done outside a request (account
- * e-mail and reminder e-mail). Many processes may run it at once; pg-boss hands each job to one
+ * e-mail, reminder e-mail and the question board's answer e-mail). Many processes may run it at once; pg-boss hands each job to one
  * of them. The app only sends; scripts/worker.ts consumes. Jobs carry ids and addresses, never
  * secrets: a job that e-mails a link mints the link itself.
  * pg-boss 10 retries nothing by default, so every queue gets a retry limit, backoff and expiry,
@@ -11,7 +11,7 @@ import { config } from './config';
 
 const QUEUE_POLICY = { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 300 } as const;
 
-export const QUEUES = { accountMail: 'account-mail', reminderSend: 'reminder-send' } as const;
+export const QUEUES = { accountMail: 'account-mail', reminderSend: 'reminder-send', answerMail: 'answer-mail' } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
 let boss: Promise<PgBoss> | undefined;

@@ -61,4 +61,4 @@ export const claimService = createClaimService({
 	}
 });
 
-export const plantsService = createPlantsService({ db, cultivarById: catalogueService.cultivarById, feeding: nurseryService.feedingSettings });
+export const plantsService = createPlantsService({ db });

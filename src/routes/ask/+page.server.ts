@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { askSchema } from '$lib/schema/questions';
 import { requireUser } from '$lib/server/auth';
 import { boardService } from '$lib/server/board/service';
-import { runForm } from '$lib/server/forms';
+import { filesOf, runFormData } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -14,7 +14,8 @@ export const load: PageServerLoad = async (event) => {
 export const actions: Actions = {
 	default: async (event) => {
 		const me = requireUser(event, 'gardener');
-		const { failure, result } = await runForm(event.request, askSchema, (d) => boardService.ask(d, me));
+		const form = await event.request.formData().catch(() => new FormData());
+		const { failure, result } = await runFormData(form, askSchema, (d) => boardService.ask(d, me, filesOf(form, 'photos')));
 		if (failure) return failure;
 		redirect(303, `/questions/${result.id}?asked=1`);
 	}

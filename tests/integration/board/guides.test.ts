@@ -6,6 +6,7 @@ import { UserFacingError } from '../../../src/lib/server/errors';
 import { guideService } from '../../../src/lib/server/guides/service';
 import { GUIDE_STAGES } from '../../../src/lib/guides';
 import { guideSchema, type GuideInput } from '../../../src/lib/schema/guides';
+import { phonePhotoWithGps } from '../../helpers/images';
 import { person } from '../../helpers/people';
 
 let owner: Awaited<ReturnType<typeof person>>;
@@ -110,5 +111,34 @@ describe('owner guides', () => {
 		expect((await refusal(guideService.save(999_999, input(), owner))).status).toBe(404);
 		expect((await refusal(guideService.publish(999_999, owner))).status).toBe(404);
 		expect(await guideService.compare(999_999, 1)).toBeNull();
+	});
+});
+
+describe('images in a guide', () => {
+	const image = async () => new File([new Uint8Array(await phonePhotoWithGps(400, 300))], 'mat.jpg', { type: 'image/jpeg' });
+
+	it('staff add one to a draft; visitors see it only once a published guide shows it', async () => {
+		const g = await guideService.create(input(), staff);
+		const { uploadId, markdown } = await guideService.addImage(g.id, await image(), 'A mulched mat [wide]', staff);
+		expect(markdown).toBe(`![A mulched mat wide](/uploads/${uploadId}/display)`);
+		await guideService.save(g.id, input({ title: g.title, body: `## Mulch\n\n${markdown}` }), staff);
+		expect((await guideService.get(g.id))!.bodyHtml).toContain(`src="/uploads/${uploadId}/display"`);
+		expect(await guideService.canSeeImage(null, uploadId)).toBe(false);
+		expect(await guideService.canSeeImage({ role: 'gardener' }, uploadId)).toBe(false);
+		expect(await guideService.canSeeImage(staff, uploadId)).toBe(true);
+		await guideService.publish(g.id, owner);
+		expect(await guideService.canSeeImage(null, uploadId)).toBe(true);
+		// Another upload's id that merely starts with the same digits is not shown by this guide.
+		expect(await guideService.canSeeImage(null, Number(`${uploadId}0`))).toBe(false);
+	});
+
+	it('a gardener cannot add one, staff cannot add one to a published guide, and no file is refused by field', async () => {
+		const gardener = await person('gardener');
+		const g = await guideService.create(input(), owner);
+		expect((await refusal(guideService.addImage(g.id, await image(), 'x', gardener))).status).toBe(403);
+		expect((await refusal(guideService.addImage(g.id, undefined, 'x', owner))).field).toBe('image');
+		await guideService.publish(g.id, owner);
+		expect((await refusal(guideService.addImage(g.id, await image(), 'x', staff))).status).toBe(403);
+		expect((await refusal(guideService.addImage(999_999, await image(), 'x', owner))).status).toBe(404);
 	});
 });

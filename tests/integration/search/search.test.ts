@@ -6,7 +6,7 @@ import { askSchema } from '../../../src/lib/schema/questions';
 import { guideSchema } from '../../../src/lib/schema/guides';
 import { person } from '../../helpers/people';
 
-const noMail = async () => undefined;
+const noMail = async () => undefined; // the answer-mail queue, not needed here
 const word = `zanzibarite${Date.now().toString(36)}`;
 let publicId = 0;
 let privateId = 0;

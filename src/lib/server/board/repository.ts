@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNull, ne, or, sql } from 'drizzle-orm';
 import type { QuestionState } from '../../board/vocabulary';
 import { db } from '../db';
-import { cultivars, milestones, plants, questionPosts, questions, users } from '../db/schema';
+import { cultivars, milestones, plants, questionPhotos, questionPosts, questions, uploads, users } from '../db/schema';
 
 export type QuestionRow = typeof questions.$inferSelect;
 export type PostRow = typeof questionPosts.$inferSelect;
@@ -48,7 +48,7 @@ export const boardRepository = {
 				.returning({ id: questions.id })
 		)[0],
 
-	deleteQuestion: (id: number) => db.delete(questions).where(eq(questions.id, id)),
+	deleteQuestion: (id: number, c: Conn = db) => c.delete(questions).where(eq(questions.id, id)),
 
 	insertPost: async (values: typeof questionPosts.$inferInsert, c: Conn = db) => (await c.insert(questionPosts).values(values).returning())[0],
 
@@ -143,6 +143,25 @@ export const boardRepository = {
 			.orderBy(desc(questions.answeredAt), desc(questions.id))
 			.limit(limit)
 			.offset(offset),
+
+	insertPhotos: (values: (typeof questionPhotos.$inferInsert)[], c: Conn) => (values.length ? c.insert(questionPhotos).values(values) : Promise.resolve()),
+
+	/** A question's photos and its answers' photos, in order, with their sizes for the page. */
+	photos: (questionId: number) =>
+		db
+			.select({ uploadId: questionPhotos.uploadId, postId: questionPhotos.postId, width: uploads.width, height: uploads.height })
+			.from(questionPhotos)
+			.innerJoin(uploads, eq(uploads.id, questionPhotos.uploadId))
+			.where(eq(questionPhotos.questionId, questionId))
+			.orderBy(asc(questionPhotos.postId), asc(questionPhotos.position)),
+
+	photoUploadIds: async (questionId: number, c: Conn) =>
+		(await c.select({ id: questionPhotos.uploadId }).from(questionPhotos).where(eq(questionPhotos.questionId, questionId))).map((r) => r.id),
+
+	/** The question a photo belongs to, for deciding who may see the photo. */
+	questionOfPhoto: async (uploadId: number) =>
+		(await db.select({ question: questions }).from(questionPhotos).innerJoin(questions, eq(questions.id, questionPhotos.questionId)).where(eq(questionPhotos.uploadId, uploadId)))[0]
+			?.question,
 
 	countPublic: async () =>
 		(await db.select({ n: count() }).from(questions).where(and(eq(questions.isPublic, true), inArray(questions.state, PUBLIC_STATES))))[0]?.n ?? 0

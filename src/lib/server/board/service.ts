@@ -5,13 +5,15 @@
  * gets the same 404 as for a missing one, so ids reveal nothing.
  */
 import { canSee, summaryFrom } from '../../board/questions';
-import { POSTING_LIMITS, type QuestionState } from '../../board/vocabulary';
+import { BOARD_BOUNDS, POSTING_LIMITS, type QuestionState } from '../../board/vocabulary';
 import type { AskInput } from '../../schema/questions';
 import { consume, type AuthUser } from '../auth';
 import { UserFacingError } from '../errors';
 import { guideService } from '../guides/service';
-import { absoluteUrl, sendMail, type Message } from '../mail';
+import { enqueue, QUEUES } from '../jobs';
 import { markdownToText, renderMarkdown } from '../markdown';
+import { uploads, type StagedUpload } from '../uploads';
+import type { AnswerMailJob } from './mail';
 import { boardRepository as repo, type QuestionRow } from './repository';
 
 type Person = Pick<AuthUser, 'id' | 'role'>;
@@ -23,8 +25,38 @@ export const postingKeys = {
 	reply: (userId: number) => `reply:${userId}`
 };
 
-/** Sends mail outside the answer's transaction; the answer stands even when the mail server is down. */
-export type Mailer = (m: Message) => Promise<unknown>;
+/** Asks for the answer e-mail; the worker sends it (./mail.ts), so the answer never waits on the mail server. */
+export type AnswerNotifier = (job: AnswerMailJob) => Promise<unknown>;
+export const queueAnswerMail: AnswerNotifier = (job) => enqueue(QUEUES.answerMail, job);
+
+/**
+ * Checks and stores up to four photos before any row is written (refusals name `field`), runs
+ * `work` in one transaction with their upload rows, and removes the files if it fails.
+ */
+async function withPhotos<T>(
+	photos: File[],
+	owner: Person,
+	field: string,
+	work: (tx: Parameters<Parameters<typeof repo.transaction>[0]>[0], uploadIds: number[]) => Promise<T>
+): Promise<T> {
+	const max = BOARD_BOUNDS.photosPerQuestion;
+	if (photos.length > max) throw new UserFacingError(field, `Add at most ${max} photos`);
+	const staged: StagedUpload[] = [];
+	try {
+		for (const photo of photos) staged.push(await uploads.stage(photo, field));
+		return await repo.transaction(async (tx) => {
+			const ids: number[] = [];
+			for (const s of staged) ids.push((await uploads.record(tx, s, { ownerId: owner.id, purpose: 'question-photo', field })).id);
+			return work(tx, ids);
+		});
+	} catch (e) {
+		await Promise.all(staged.map((s) => s.discard()));
+		throw e;
+	}
+}
+
+const photoRows = (questionId: number, postId: number | null, uploadIds: number[]) =>
+	uploadIds.map((uploadId, position) => ({ questionId, postId, uploadId, position }));
 
 async function visible(id: number, viewer: Person | null): Promise<QuestionRow> {
 	const q = await repo.findQuestion(id);
@@ -47,34 +79,50 @@ async function limited(key: string, rule: { limit: number; windowMs: number }) {
 const rendered = (markdown: string) => ({ body: markdown, bodyHtml: renderMarkdown(markdown), bodyText: markdownToText(markdown) });
 
 export const boardService = {
-	async ask(input: AskInput, asker: Person, now = new Date()): Promise<QuestionRow> {
+	/** A new question with up to four photos, all written in one transaction. */
+	async ask(input: AskInput, asker: Person, photos: File[] = [], now = new Date()): Promise<QuestionRow> {
 		if (input.plantId !== null && !(await repo.ownPlant(input.plantId, asker.id))) {
 			throw new UserFacingError('plantId', 'Choose one of your plants', 404);
 		}
 		await limited(postingKeys.question(asker.id), POSTING_LIMITS.questionsPerAccount);
-		return repo.insertQuestion({
-			askerId: asker.id,
-			plantId: input.plantId,
-			title: input.title,
-			isPublic: input.isPublic,
-			...rendered(input.body),
-			waitingSince: now,
-			createdAt: now,
-			updatedAt: now
+		return withPhotos(photos, asker, 'photos', async (tx, uploadIds) => {
+			const q = (await repo.insertQuestion(
+				{
+					askerId: asker.id,
+					plantId: input.plantId,
+					title: input.title,
+					isPublic: input.isPublic,
+					...rendered(input.body),
+					waitingSince: now,
+					createdAt: now,
+					updatedAt: now
+				},
+				tx
+			))!;
+			await repo.insertPhotos(photoRows(q.id, null, uploadIds), tx);
+			return q;
 		});
 	},
 
 	/** A question with its thread, or a 404 for anyone who may not see it. */
 	async view(id: number, viewer: Person | null, today: string) {
 		const q = await visible(id, viewer);
-		const [people, posts, plant] = await Promise.all([
+		const [people, posts, photos, plant] = await Promise.all([
 			repo.questionWithPeople(q.id),
 			repo.posts(q.id),
+			repo.photos(q.id),
 			q.plantId && viewer && (isStaff(viewer) || viewer.id === q.askerId) ? repo.plantSummary(q.plantId) : Promise.resolve(undefined)
 		]);
 		void today;
 		const recent = plant ? (await boardService.recentMilestones([plant.plantId])).get(plant.plantId) ?? [] : [];
-		return { question: q, askerName: people!.askerName, claimedByName: people!.claimedByName, posts, plant: plant ? { ...plant, milestones: recent } : null };
+		return {
+			question: q,
+			askerName: people!.askerName,
+			claimedByName: people!.claimedByName,
+			posts: posts.map((p) => ({ ...p, photos: photos.filter((ph) => ph.postId === p.id) })),
+			photos: photos.filter((ph) => ph.postId === null),
+			plant: plant ? { ...plant, milestones: recent } : null
+		};
 	},
 
 	async reply(id: number, body: string, asker: Person, now = new Date()) {
@@ -103,9 +151,22 @@ export const boardService = {
 		});
 	},
 
+	/** Deletes the question, its posts and its photos (rows in one transaction, files once it commits). */
 	async remove(id: number, asker: Person) {
 		const q = await askersOwn(id, asker);
-		await repo.deleteQuestion(q.id);
+		const removeFiles = await repo.transaction(async (tx) => {
+			const removals = [];
+			for (const uploadId of await repo.photoUploadIds(q.id, tx)) removals.push(await uploads.remove(tx, uploadId));
+			await repo.deleteQuestion(q.id, tx);
+			return removals;
+		});
+		await Promise.all(removeFiles.map((r) => r()));
+	},
+
+	/** Who may see a question's photo: whoever may see the question. */
+	async canSeePhoto(viewer: Person | null, uploadId: number): Promise<boolean> {
+		const q = await repo.questionOfPhoto(uploadId);
+		return q !== undefined && canSee(q, viewer);
 	},
 
 	// Staff side.
@@ -124,33 +185,31 @@ export const boardService = {
 		if (q.claimedById === staff.id || staff.role === 'owner') await repo.updateQuestion(id, { claimedById: null, claimedAt: null }, now);
 	},
 
-	/** Saves the answer, then e-mails the asker with a link back; a mail failure does not lose the answer. */
-	async answer(id: number, body: string, staff: Person, mail: Mailer = sendMail, now = new Date()) {
+	/**
+	 * Saves the answer (with up to four photos), then queues the e-mail to the asker. The worker
+	 * sends it and retries; a queue that cannot be reached is logged and does not lose the answer.
+	 */
+	async answer(id: number, body: string, staff: Person, notify: AnswerNotifier = queueAnswerMail, photos: File[] = [], now = new Date()) {
 		if (!isStaff(staff)) throw notFound();
-		const q = await repo.transaction(async (tx) => {
+		const q = await withPhotos(photos, staff, 'photos', async (tx, uploadIds) => {
 			const q = await repo.lockQuestion(id, tx);
 			if (!q) throw notFound();
 			if (q.claimedById && q.claimedById !== staff.id) {
 				throw new UserFacingError('form', 'Another member of staff has claimed this question: ask them, or release it first', 409);
 			}
-			await repo.insertPost({ questionId: q.id, authorId: staff.id, kind: 'answer', ...rendered(body), createdAt: now }, tx);
+			const post = (await repo.insertPost({ questionId: q.id, authorId: staff.id, kind: 'answer', ...rendered(body), createdAt: now }, tx))!;
+			await repo.insertPhotos(photoRows(q.id, post.id, uploadIds), tx);
 			const state: QuestionState = q.state === 'hidden' ? 'hidden' : 'answered';
 			await repo.updateQuestion(q.id, { state, answeredAt: now, claimedById: null, claimedAt: null }, now, tx);
 			return q;
 		});
-		const people = await repo.questionWithPeople(q.id);
-		let mailed = true;
 		try {
-			await mail({
-				to: people!.askerEmail,
-				subject: `Your question has an answer: ${q.title}`,
-				text: `Hello ${people!.askerName},\n\nThe nursery has answered your question “${q.title}”. Read it, reply, or mark it resolved here:\n\n${absoluteUrl(`/questions/${q.id}`)}\n\nBunchline`
-			});
+			await notify({ questionId: q.id });
+			return { mailed: true };
 		} catch (e) {
-			mailed = false;
-			console.error('answer mail failed', e);
+			console.error('answer mail could not be queued', e);
+			return { mailed: false };
 		}
-		return { mailed };
 	},
 
 	async setState(id: number, state: QuestionState, staff: Person, now = new Date()) {

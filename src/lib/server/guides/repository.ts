@@ -27,6 +27,16 @@ const listColumns = {
 export const guidesRepository = {
 	transaction: <T>(fn: (tx: Tx) => Promise<T>) => db.transaction(fn),
 
+	/** Whether a published guide shows this image (its stored HTML links the upload's path). */
+	publishedGuideShows: async (uploadId: number) =>
+		(
+			await db
+				.select({ id: guides.id })
+				.from(guides)
+				.where(and(eq(guides.status, 'published'), sql`strpos(${guides.bodyHtml}, ${`/uploads/${uploadId}/`}) > 0`))
+				.limit(1)
+		).length > 0,
+
 	findById: async (id: number, c: Conn = db) => (await c.select().from(guides).where(eq(guides.id, id)))[0],
 
 	/** Locks the guide's row so two saves cannot take the same revision number. */

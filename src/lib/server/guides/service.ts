@@ -10,6 +10,7 @@ import type { GuideInput } from '../../schema/guides';
 import type { AuthUser } from '../auth';
 import { UserFacingError } from '../errors';
 import { markdownToText, renderMarkdown } from '../markdown';
+import { uploads } from '../uploads';
 import { guidesRepository as repo, type GuideRow, type GuideValues, type RevisionRow } from './repository';
 
 type Author = Pick<AuthUser, 'id' | 'role'>;
@@ -146,6 +147,26 @@ export const guideService = {
 		if (who.role !== 'owner') throw new UserFacingError('form', 'Only the owner publishes guides', 403);
 		if (!(await repo.findById(id))) throw new UserFacingError('form', 'No such guide', 404);
 		await repo.update(id, { status: 'draft' }, now);
+	},
+
+	/** Stores an image for a guide's text (owner and staff) and returns the Markdown that shows its display size. */
+	async addImage(guideId: number, file: File | undefined, alt: string, who: Author): Promise<{ uploadId: number; markdown: string }> {
+		if (who.role !== 'owner' && who.role !== 'staff') throw new UserFacingError('image', 'Only the nursery adds images to guides', 403);
+		await editable(guideId, who);
+		if (!file) throw new UserFacingError('image', 'Choose an image to add');
+		const staged = await uploads.stage(file, 'image');
+		try {
+			const upload = await repo.transaction((tx) => uploads.record(tx, staged, { ownerId: who.id, purpose: 'guide-image', field: 'image' }));
+			return { uploadId: upload.id, markdown: `![${alt.replace(/[[\]\\]/g, '')}](/uploads/${upload.id}/display)` };
+		} catch (e) {
+			await staged.discard();
+			throw e;
+		}
+	},
+
+	/** The nursery sees every guide image; everyone else only those a published guide shows. */
+	async canSeeImage(viewer: Pick<Author, 'role'> | null, uploadId: number): Promise<boolean> {
+		return viewer?.role === 'owner' || viewer?.role === 'staff' || repo.publishedGuideShows(uploadId);
 	},
 
 	async get(id: number): Promise<GuideRow | undefined> {

@@ -1,6 +1,6 @@
 /** Plant queries for the lists, the API and claiming. Queries only. */
-import { and, asc, count, desc, eq, isNull, sql, type SQL } from 'drizzle-orm';
-import { climateProfiles, cultivars, plants, sales, users } from '../db/schema';
+import { and, asc, count, desc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { climateProfiles, cultivars, milestones, planSteps, plants, sales, users } from '../db/schema';
 import type { AnyDb } from '../secrets';
 
 const listColumns = {
@@ -57,6 +57,23 @@ export function plantsRepository(db: AnyDb) {
 				.offset(offset),
 		count: async (where: SQL[]) => (await db.select({ n: count() }).from(plants).where(and(...where)))[0].n,
 		one: async (where: SQL[]) => (await base().where(and(...where)))[0],
+		/** The stored plan steps of a page of plants, each plant's in plan order. */
+		storedSteps: (plantIds: number[]) =>
+			plantIds.length === 0
+				? Promise.resolve([])
+				: db
+						.select({ plantId: planSteps.plantId, kind: planSteps.kind, title: planSteps.title, generation: planSteps.generation, likely: planSteps.likely, observed: planSteps.observed })
+						.from(planSteps)
+						.where(inArray(planSteps.plantId, plantIds))
+						.orderBy(asc(planSteps.plantId), asc(planSteps.likely), asc(planSteps.id)),
+		/** The logged milestones of a page of plants. */
+		milestonesOf: (plantIds: number[]) =>
+			plantIds.length === 0
+				? Promise.resolve([])
+				: db
+						.select({ plantId: milestones.plantId, id: milestones.id, kind: milestones.kind, generation: milestones.generation, on: milestones.on, leaves: milestones.leaves })
+						.from(milestones)
+						.where(inArray(milestones.plantId, plantIds)),
 		/** A plant by its claim code's hash, with what the claim page shows. */
 		byClaimHash: async (hash: string) =>
 			(

@@ -1,16 +1,13 @@
 /**
- * One plant as its owner and the nursery see it, in a scope (a gardener's own, or all for staff),
- * with its stage and next step from `plantStatus`. Lists of plants, with filters, sorting and
- * counts over the stored stage and next step, are the nursery table's (src/lib/server/plant-table). A gardener asking for a
- * plant that is not theirs gets the same 404 as for one that does not exist.
+ * "My plants": a page of one scope's plants with their stage and next step, read from each plant's
+ * stored plan (plan_steps and its milestones) through `planSummary`, the same rule the nursery's
+ * table keeps on the plant row; nothing is re-planned per request. Lists with filters, sorting
+ * and counts over the stored stage and next step are the nursery table's (src/lib/server/plant-table).
  */
-import { eq } from 'drizzle-orm';
-import type { Cultivar, FeedingSettings } from '../../care';
-import { plants } from '../db/schema';
-import { UserFacingError } from '../errors';
+import { isPlantStage, stageLabel, type IsoDate, type StepKind } from '../../care';
+import { planSummary } from '../../plants/summary';
 import type { AnyDb } from '../secrets';
 import { plantFilters, plantsRepository, type PlantListRow, type PlantScope } from './repository';
-import { plantStatus, type PlantStatus } from './status';
 
 export type { PlantScope };
 
@@ -19,8 +16,13 @@ export const scopeFor = (user: { id: number; role: string }): PlantScope => (use
 
 export interface PlantsDeps {
 	db: AnyDb;
-	cultivarById: (id: number) => Promise<{ cultivar: Cultivar } | undefined>;
-	feeding: () => Promise<FeedingSettings>;
+}
+
+export interface PlantStatus {
+	/** Plain words for where the plant is; null when it is not planted (or not claimed) yet. */
+	stage: { id: string; label: string } | null;
+	/** The first step still ahead (today or later, not already logged). */
+	nextStep: { kind: StepKind; title: string; on: IsoDate; generation: number } | null;
 }
 
 export interface PlantView extends PlantStatus {
@@ -36,37 +38,44 @@ export interface PlantView extends PlantStatus {
 	gardener?: { id: number; name: string } | null;
 }
 
-export function createPlantsService({ db, cultivarById, feeding }: PlantsDeps) {
+type StoredStep = Awaited<ReturnType<ReturnType<typeof plantsRepository>['storedSteps']>>[number];
+type StoredMilestone = Awaited<ReturnType<ReturnType<typeof plantsRepository>['milestonesOf']>>[number];
+
+/** Stage and next step of one plant from its stored steps and milestones, as of `today`. */
+export function statusFromStored(plantedOn: IsoDate | null, steps: StoredStep[], logged: StoredMilestone[], today: IsoDate): PlantStatus {
+	if (!plantedOn || steps.length === 0) return { stage: null, nextStep: null };
+	const summary = planSummary(steps, logged, today);
+	const next = summary.nextStepOn ? steps.find((s) => s.likely === summary.nextStepOn && s.kind === summary.nextStepKind) : undefined;
+	return {
+		// Before the planting day there is no stage yet: the page says it is waiting to be planted.
+		stage: plantedOn > today || !isPlantStage(summary.stage) ? null : { id: summary.stage, label: stageLabel(summary.stage) },
+		nextStep: next ? { kind: next.kind as StepKind, title: next.title, on: next.likely, generation: next.generation } : null
+	};
+}
+
+export function createPlantsService({ db }: PlantsDeps) {
 	const repo = plantsRepository(db);
 
 	async function views(rows: PlantListRow[], scope: PlantScope, today: string): Promise<PlantView[]> {
-		const settings = await feeding();
-		const cultivarCache = new Map<number, Promise<{ cultivar: Cultivar } | undefined>>();
-		return Promise.all(
-			rows.map(async (r) => {
-				if (!cultivarCache.has(r.cultivarId)) cultivarCache.set(r.cultivarId, cultivarById(r.cultivarId));
-				const stored = await cultivarCache.get(r.cultivarId);
-				const status = stored
-					? plantStatus(
-							{ cultivar: stored.cultivar, plantedOn: r.plantedOn, ageAtPlantingWeeks: r.ageAtPlantingWeeks, monthlyMeanC: r.customMonthlyMeanC ?? r.profileMeans, units: r.units ?? 'metric' },
-							settings,
-							today
-						)
-					: { stage: null, nextStep: null };
-				return {
-					id: r.id,
-					saleId: r.saleId,
-					cultivar: { slug: r.cultivarSlug, name: r.cultivarName },
-					soldOn: r.soldOn,
-					claimed: r.claimedAt !== null,
-					plantedOn: r.plantedOn,
-					climate: r.customMonthlyMeanC ? 'own monthly means' : r.climateName,
-					units: r.units,
-					...status,
-					...(scope.kind === 'all' ? { gardener: r.gardenerId !== null ? { id: r.gardenerId, name: r.gardenerName ?? '' } : null } : {})
-				};
-			})
-		);
+		const ids = rows.map((r) => r.id);
+		const [steps, logged] = await Promise.all([repo.storedSteps(ids), repo.milestonesOf(ids)]);
+		return rows.map((r) => ({
+			id: r.id,
+			saleId: r.saleId,
+			cultivar: { slug: r.cultivarSlug, name: r.cultivarName },
+			soldOn: r.soldOn,
+			claimed: r.claimedAt !== null,
+			plantedOn: r.plantedOn,
+			climate: r.customMonthlyMeanC ? 'own monthly means' : r.climateName,
+			units: r.units,
+			...statusFromStored(
+				r.plantedOn,
+				steps.filter((s) => s.plantId === r.id),
+				logged.filter((m) => m.plantId === r.id),
+				today
+			),
+			...(scope.kind === 'all' ? { gardener: r.gardenerId !== null ? { id: r.gardenerId, name: r.gardenerName ?? '' } : null } : {})
+		}));
 	}
 
 	return {
@@ -81,13 +90,6 @@ export function createPlantsService({ db, cultivarById, feeding }: PlantsDeps) {
 			const page = Math.min(query.page, Math.max(1, Math.ceil(total / query.size)));
 			const rows = await repo.page(where, query.size, (page - 1) * query.size);
 			return { plants: await views(rows, scope, today), total, page, size: query.size };
-		},
-
-		/** One plant in a scope; 404 when it is missing or belongs to someone else. */
-		async one(scope: PlantScope, id: number, today: string): Promise<PlantView> {
-			const row = await repo.one([...plantFilters(scope), eq(plants.id, id)]);
-			if (!row) throw new UserFacingError('id', 'No such plant', 404);
-			return (await views([row], scope, today))[0];
 		}
 	};
 }

@@ -1,5 +1,6 @@
 import { error, redirect } from '@sveltejs/kit';
 import { plantAgeWeeks, publicAskerName } from '$lib/board/questions';
+import { isPlantStage, stageLabel } from '$lib/care/stages';
 import { acceptSchema, postSchema } from '$lib/schema/questions';
 import { requireUser } from '$lib/server/auth';
 import { boardService } from '$lib/server/board/service';
@@ -26,8 +27,9 @@ export const load: PageServerLoad = async (event) => {
 			question: { id: v.question.id, title: v.question.title, bodyHtml: v.question.bodyHtml, state: v.question.state, isPublic: v.question.isPublic, createdAt: v.question.createdAt },
 			// The asker and staff see the full name; everyone else the first name only.
 			askedBy: isAsker ? 'you' : isStaff ? v.askerName : publicAskerName(v.askerName),
-			posts: v.posts.map(({ id, kind, bodyHtml, accepted, createdAt, authorName }) => ({ id, kind, bodyHtml, accepted, createdAt, authorName })),
-			plant: v.plant && (isAsker || isStaff) ? { cultivarName: v.plant.cultivarName, ageWeeks: plantAgeWeeks(v.plant.plantedOn, v.plant.ageAtPlantingWeeks, today), stage: v.plant.stage } : null,
+			posts: v.posts.map(({ id, kind, bodyHtml, accepted, createdAt, authorName, photos }) => ({ id, kind, bodyHtml, accepted, createdAt, authorName, photos })),
+			photos: v.photos,
+			plant: v.plant && (isAsker || isStaff) ? { cultivarName: v.plant.cultivarName, ageWeeks: plantAgeWeeks(v.plant.plantedOn, v.plant.ageAtPlantingWeeks, today), stage: v.plant.stage && isPlantStage(v.plant.stage) ? stageLabel(v.plant.stage) : null } : null,
 			isAsker,
 			isStaff,
 			asked: event.url.searchParams.has('asked')

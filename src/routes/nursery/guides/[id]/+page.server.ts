@@ -1,9 +1,9 @@
 import { error } from '@sveltejs/kit';
 import { CULTIVAR_GROUPS } from '$lib/board/vocabulary';
 import { GUIDE_STAGES } from '$lib/guides';
-import { guideSchema, revisionSchema } from '$lib/schema/guides';
+import { guideImageSchema, guideSchema, revisionSchema } from '$lib/schema/guides';
 import { requireUser, STAFF_ROLES } from '$lib/server/auth';
-import { runForm } from '$lib/server/forms';
+import { filesOf, runForm, runFormData } from '$lib/server/forms';
 import { rowIdOr404 } from '$lib/server/params';
 import { guideService } from '$lib/server/guides/service';
 import { z } from 'zod';
@@ -44,6 +44,14 @@ export const actions: Actions = {
 		const me = requireUser(event, 'owner');
 		const { failure } = await runForm(event.request, nothing, () => guideService.unpublish(guideId(event.params.id), me));
 		return failure ?? { unpublished: true };
+	},
+	/** Stores an image for the text and hands back the Markdown that shows it (the page adds it to the text). */
+	image: async (event) => {
+		const me = requireUser(event, ...STAFF_ROLES);
+		const id = guideId(event.params.id);
+		const form = await event.request.formData().catch(() => new FormData());
+		const { failure, result } = await runFormData(form, guideImageSchema, (d) => guideService.addImage(id, filesOf(form, 'image')[0], d.alt, me));
+		return failure ?? { imageMarkdown: result.markdown };
 	},
 	restore: async (event) => {
 		const me = requireUser(event, ...STAFF_ROLES);

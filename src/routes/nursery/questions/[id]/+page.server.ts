@@ -4,7 +4,7 @@ import { QUESTION_STATES } from '$lib/board/vocabulary';
 import { postSchema, stateSchema, toGuideSchema } from '$lib/schema/questions';
 import { requireUser, STAFF_ROLES } from '$lib/server/auth';
 import { boardService } from '$lib/server/board/service';
-import { runForm } from '$lib/server/forms';
+import { filesOf, runForm, runFormData } from '$lib/server/forms';
 import { rowIdOr404 } from '$lib/server/params';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
@@ -31,7 +31,8 @@ export const load: PageServerLoad = async (event) => {
 		},
 		askerName: v.askerName,
 		claimedByName: v.claimedByName,
-		posts: v.posts.map(({ id, kind, bodyHtml, accepted, createdAt, authorName }) => ({ id, kind, bodyHtml, accepted, createdAt, authorName })),
+		posts: v.posts.map(({ id, kind, bodyHtml, accepted, createdAt, authorName, photos }) => ({ id, kind, bodyHtml, accepted, createdAt, authorName, photos })),
+		photos: v.photos,
 		plant: v.plant ? { ...v.plant, ageWeeks: plantAgeWeeks(v.plant.plantedOn, v.plant.ageAtPlantingWeeks, today) } : null,
 		meId: me.id,
 		isOwner: me.role === 'owner',
@@ -52,7 +53,8 @@ export const actions: Actions = {
 	},
 	answer: async (event) => {
 		const me = requireUser(event, ...STAFF_ROLES);
-		const { failure, result } = await runForm(event.request, postSchema, (d) => boardService.answer(questionId(event.params.id), d.body, me));
+		const form = await event.request.formData().catch(() => new FormData());
+		const { failure, result } = await runFormData(form, postSchema, (d) => boardService.answer(questionId(event.params.id), d.body, me, undefined, filesOf(form, 'photos')));
 		return failure ?? { answered: true, mailed: result.mailed };
 	},
 	state: async (event) => {
