@@ -62,6 +62,9 @@ export const feedScopeFormSchema = z.object({
 	scope: z.union([z.literal('all'), idField('plant')], { error: 'Choose all plants or one plant' })
 });
 
+/** The plant page's "add to my calendar" form: the plant comes from the path, the form has no fields. */
+export const plantFeedFormSchema = z.object({});
+
 export const feedIdSchema = z.object({ id: idField('feed') });
 
 export const reminderIdSchema = z.object({ id: idField('reminder') });

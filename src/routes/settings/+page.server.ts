@@ -1,7 +1,7 @@
-import QRCode from 'qrcode';
 import { feedIdSchema, feedScopeFormSchema, reminderSettingsSchema } from '$lib/schema/delivery';
 import { requireUser } from '$lib/server/auth';
 import { feeds } from '$lib/server/feeds/service';
+import { feedShownOnce } from '$lib/server/feeds/shown';
 import { runForm } from '$lib/server/forms';
 import { reminderService } from '$lib/server/reminders/service';
 import type { Actions, PageServerLoad } from './$types';
@@ -13,9 +13,7 @@ export const load: PageServerLoad = async (event) => {
 };
 
 /** The new address, shown once, with a QR code of its webcal:// form. */
-async function shown(feed: { https: string; webcal: string }, scope: string) {
-	return { newFeed: { ...feed, scope, qrSvg: await QRCode.toString(feed.webcal, { type: 'svg', margin: 1, errorCorrectionLevel: 'M' }) } };
-}
+const shown = async (feed: { https: string; webcal: string }, scope: string) => ({ newFeed: await feedShownOnce(feed, scope) });
 
 const scopeLabel = (plants: { id: number; label: string }[], plantId: number | null) =>
 	plantId === null ? 'all your plants' : (plants.find((p) => p.id === plantId)?.label ?? 'this plant');

@@ -7,7 +7,9 @@
  * 2. A send job claims its rows (due → sending), sends each message with its deterministic
  *    Message-ID, and marks the rows sent. A crash between sending and marking leaves the row
  *    "sending"; after the lease it is sent again with the same Message-ID, so receivers can drop
- *    the copy. A row is never claimed by two workers at once.
+ *    the copy. A row is never claimed by two workers at once, and while a job still works through
+ *    its rows it renews their claim (every third of the lease), so only a vanished worker's rows
+ *    are taken over, however slowly a busy machine sends.
  * 3. A temporary refusal (4xx, no answer, connection lost) puts the row back as due after a
  *    growing delay; a permanent one (5xx) or the last allowed attempt marks it failed with the
  *    reason, for staff to see and resend. One refusal never holds up the rest of a batch.
@@ -37,7 +39,7 @@ export interface Mailer {
 	send(mail: OutgoingMail): Promise<void>;
 }
 
-export type DispatchRepository = Pick<ReminderRepository, 'pickDue' | 'claim' | 'markSent' | 'markRetry' | 'markFailed' | 'markSkipped'>;
+export type DispatchRepository = Pick<ReminderRepository, 'pickDue' | 'claim' | 'renewClaim' | 'markSent' | 'markRetry' | 'markFailed' | 'markSkipped'>;
 
 /** SMTP answers 4xx for "try again later" and 5xx for "never" (RFC 5321 §4.2.1). */
 export function isPermanent(error: unknown): boolean {
@@ -120,7 +122,18 @@ export function createDispatcher(repo: DispatchRepository, mailer: Mailer, optio
 			for (const rows of digests.values()) {
 				messages.push({ ids: rows.map((r) => r.id), mail: digestMail(rows, options.mail), attempts: Math.max(...rows.map((r) => r.attempts)) });
 			}
-			await inParallel(messages, options.concurrency, (m) => deliver(m.ids, m.mail, m.attempts));
+			const unsettled = new Set(messages.flatMap((m) => m.ids));
+			const renew = setInterval(() => {
+				if (unsettled.size) repo.renewClaim([...unsettled]).catch(() => {}); // the lease covers a missed renewal
+			}, options.leaseMs / 3);
+			try {
+				await inParallel(messages, options.concurrency, async (m) => {
+					await deliver(m.ids, m.mail, m.attempts);
+					for (const id of m.ids) unsettled.delete(id);
+				});
+			} finally {
+				clearInterval(renew);
+			}
 		}
 	};
 }

@@ -194,6 +194,11 @@ export const reminderRepository = {
 		db.execute(sql`update reminders set state = 'sent', sent_at = now(), updated_at = now(), last_error = null
 			where id in ${sql.raw(`(${ids.map(Number).join(',')})`)} and state = 'sending'`),
 
+	/** Keeps a send job's claim alive while its messages go out, so a slow batch is not taken over. */
+	renewClaim: (ids: number[]) =>
+		db.execute(sql`update reminders set claimed_at = now()
+			where id in ${sql.raw(`(${ids.map(Number).join(',')})`)} and state = 'sending'`),
+
 	/** A temporary refusal: due again after the delay, picked by a later tick. */
 	markRetry: (ids: number[], error: string, retryInMs: number) =>
 		db.execute(sql`update reminders set state = 'due', last_error = ${error}, queued_at = null, updated_at = now(),
