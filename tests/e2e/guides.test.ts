@@ -4,7 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
-import { expectAccessible, launch, newContext, open, signIn } from '../helpers/browser';
+import { expectAccessible, launch, newContext, open, signIn, watch } from '../helpers/browser';
 import { eq } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/db/schema';
@@ -20,21 +20,6 @@ beforeAll(async () => {
 	[{ id: ownerId }] = await db.select({ id: users.id }).from(users).where(eq(users.email, DEMO_ACCOUNTS[0].email));
 });
 afterAll(async () => browser?.close());
-
-/** Fails the test on any alert or prompt (a confirm is answered yes) and on any console error. */
-function watch(page: Page): string[] {
-	const problems: string[] = [];
-	page.on('dialog', async (d) => {
-		if (d.type() === 'confirm') return d.accept();
-		problems.push(`${d.type()}: ${d.message()}`);
-		await d.dismiss();
-	});
-	page.on('console', (m) => {
-		if (m.type() === 'error') problems.push(`console: ${m.text()}`);
-	});
-	page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-	return problems;
-}
 
 /** Written and published through the service (the forms themselves are exercised below), so 38 pages stay quick. */
 async function publishedGuide(title: string, body: string): Promise<string> {

@@ -60,3 +60,18 @@ export async function signIn(page: Page, email: string, password: string): Promi
 	await page.getByRole('button', { name: 'Sign in' }).click();
 	await page.waitForURL((u) => !u.pathname.startsWith('/login'));
 }
+
+/** Fails the test on any alert or prompt (a confirm is answered yes) and on any console error. */
+export function watch(page: Page): string[] {
+	const problems: string[] = [];
+	page.on('dialog', async (d) => {
+		if (d.type() === 'confirm') return d.accept();
+		problems.push(`${d.type()}: ${d.message()}`);
+		await d.dismiss();
+	});
+	page.on('console', (m) => {
+		if (m.type() === 'error') problems.push(`console: ${m.text()}`);
+	});
+	page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+	return problems;
+}

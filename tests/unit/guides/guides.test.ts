@@ -6,6 +6,8 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { GUIDE_FOR } from '../../../src/lib/care/plan';
+import { PLANT_STAGE_IDS } from '../../../src/lib/care/stages';
+import { BORROWED_STAGE_GUIDES, GUIDE_FOR_STAGE } from '../../../src/lib/stage-guides';
 import { GUIDE_STAGES, buildLibrary, findGuide, guideFrontmatter, guidesByStage, listGuides } from '../../../src/lib/guides';
 
 const DIR = join(process.cwd(), 'content/guides');
@@ -22,6 +24,15 @@ describe('guide library', () => {
 	});
 	it('has no guide that no step links to', () => {
 		expect(listGuides().map((g) => g.slug).sort()).toEqual([...slugs].sort());
+	});
+	it('links every plant stage to an existing guide, filed under that stage unless the stage has none', () => {
+		for (const stage of PLANT_STAGE_IDS) {
+			const guide = findGuide(GUIDE_FOR_STAGE[stage]);
+			expect(guide, stage).toBeDefined();
+			const own = listGuides().filter((g) => g.stage === stage);
+			if (BORROWED_STAGE_GUIDES.includes(stage)) expect(own, stage).toEqual([]);
+			else expect(guide!.stage, stage).toBe(stage);
+		}
 	});
 	it('lists guides by order, with distinct orders', () => {
 		const orders = listGuides().map((g) => g.order);

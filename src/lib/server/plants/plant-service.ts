@@ -10,6 +10,7 @@ import type { ChangeCause } from '$lib/plants/changes';
 import type { MilestoneInput, MilestonePatch, PlantPatch } from '$lib/schema/plant';
 import { AGE_MAX_WEEKS } from '$lib/schema/plan';
 import { formatDay, generationLabel, stageLabel } from '$lib/plan-text';
+import { stageGuideHref } from '$lib/stage-guides';
 import { agendaFor } from '$lib/plants/agenda';
 import { stepFromStored } from '$lib/plants/plan-diff';
 import { describeCause, describeShift } from '$lib/plants/changes';
@@ -145,6 +146,7 @@ export function createPlantService(deps: PlantServiceDeps) {
 					archived: plant.archivedAt !== null,
 					gardenerName: found.gardenerName,
 					stageLabel: plant.stage && isPlantStage(plant.stage) ? stageLabel(plant.stage) : null,
+					stageGuide: plant.stage && isPlantStage(plant.stage) ? stageGuideHref(plant.stage) : null,
 					stemLabel: generationLabel(generation),
 					generation
 				},
