@@ -11,6 +11,7 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync } from 'node:fs';
+import { cpus, loadavg } from 'node:os';
 import { createServer } from 'node:http';
 import autocannon from 'autocannon';
 import nodemailer from 'nodemailer';
@@ -27,6 +28,9 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 const pg = cluster({ dir: '.data/bench', port: PORTS.pg, database: 'postgres' });
 const children: ChildProcess[] = [];
 const log = (line: string) => console.log(line);
+/** The machine's 1-minute load average, recorded beside every figure: this machine is shared. */
+const load = () => loadavg()[0].toFixed(1);
+const loads: Record<string, string> = {};
 
 function launch(args: string[], env: Record<string, string>): ChildProcess {
 	const child = spawn('node', args, { env: { ...process.env, ...env }, stdio: ['ignore', 'ignore', 'inherit'] });
@@ -76,6 +80,7 @@ async function main() {
 	const mail = stepReminderMail(claimed as Parameters<typeof stepReminderMail>[0], { from: 'Bunchline <plans@bunchline.test>', origin });
 	await sql`update reminders set state = 'due', attempts = 0, due_at = now() + interval '1 day' where id = ${sample.id}`;
 	const transport = nodemailer.createTransport({ host: '127.0.0.1', port: PORTS.smtp, secure: false, ignoreTLS: true, pool: true, maxConnections: CONCURRENCY, maxMessages: Infinity });
+	const plainLoad = load();
 	let plainStart = performance.now();
 	let next = 0;
 	await Promise.all(
@@ -87,6 +92,7 @@ async function main() {
 		})
 	);
 	const plainRate = N / ((performance.now() - plainStart) / 1000);
+	loads.plain = `${plainLoad}→${load()}`;
 	transport.close();
 	log(`plain nodemailer: ${plainRate.toFixed(0)} messages/s`);
 
@@ -100,6 +106,7 @@ async function main() {
 		REMINDER_CONCURRENCY: String(CONCURRENCY)
 	});
 	await sleep(6000);
+	const workerLoad = load();
 	const started = performance.now();
 	await sql`update reminders set due_at = due_at - interval '2 days'`;
 	for (;;) {
@@ -109,6 +116,7 @@ async function main() {
 		await sleep(250);
 	}
 	const dispatchRate = N / ((performance.now() - started) / 1000);
+	loads.worker = `${workerLoad}→${load()}`;
 	const [{ twice }] = await sql<{ twice: number }[]>`select count(*)::int as twice from reminders where attempts > 1`;
 	log(`worker: ${dispatchRate.toFixed(0)} messages/s (${twice} needed a second attempt)`);
 	worker.kill('SIGTERM');
@@ -134,8 +142,12 @@ async function main() {
 	});
 	await new Promise<void>((r) => bare.listen(PORTS.bare, '127.0.0.1', () => r()));
 	const path = new URL(feedUrl).pathname;
-	const run = async (port: number, extra: Record<string, string> = {}) =>
-		(await autocannon({ url: `http://127.0.0.1:${port}${path}`, connections: 10, duration: SECONDS, headers: extra })).requests.average;
+	const run = async (port: number, extra: Record<string, string> = {}) => {
+		const before = load();
+		const average = (await autocannon({ url: `http://127.0.0.1:${port}${path}`, connections: 10, duration: SECONDS, headers: extra })).requests.average;
+		loads[`${port}${extra['if-none-match'] ? ' 304' : ''}`] = `${before}→${load()}`;
+		return average;
+	};
 	const routes = {
 		app200: await run(PORTS.app),
 		bare200: await run(PORTS.bare),
@@ -147,11 +159,13 @@ async function main() {
 
 	const r = (a: number, b: number) => (a / b).toFixed(2);
 	console.log(`
-| measure | Bunchline | baseline | ratio |
-| --- | --- | --- | --- |
-| reminders, messages/s (${N}, worker vs plain nodemailer, pool of ${CONCURRENCY}) | ${dispatchRate.toFixed(0)} | ${plainRate.toFixed(0)} | ${r(dispatchRate, plainRate)} |
-| feed, requests/s (${events} events, ${body.length} bytes; route vs node:http) | ${routes.app200.toFixed(0)} | ${routes.bare200.toFixed(0)} | ${r(routes.app200, routes.bare200)} |
-| feed with If-None-Match → 304, requests/s | ${routes.app304.toFixed(0)} | ${routes.bare304.toFixed(0)} | ${r(routes.app304, routes.bare304)} |
+${new Date().toISOString()}, node ${process.version}, ${cpus().length} cores; load = 1-minute load average at the start→end of each measurement (Bunchline; baseline)
+
+| measure | Bunchline | baseline | ratio | load |
+| --- | --- | --- | --- | --- |
+| reminders, messages/s (${N}, worker vs plain nodemailer, pool of ${CONCURRENCY}) | ${dispatchRate.toFixed(0)} | ${plainRate.toFixed(0)} | ${r(dispatchRate, plainRate)} | ${loads.worker}; ${loads.plain} |
+| feed, requests/s (${events} events, ${body.length} bytes; route vs node:http) | ${routes.app200.toFixed(0)} | ${routes.bare200.toFixed(0)} | ${r(routes.app200, routes.bare200)} | ${loads[PORTS.app]}; ${loads[PORTS.bare]} |
+| feed with If-None-Match → 304, requests/s | ${routes.app304.toFixed(0)} | ${routes.bare304.toFixed(0)} | ${r(routes.app304, routes.bare304)} | ${loads[`${PORTS.app} 304`]}; ${loads[`${PORTS.bare} 304`]} |
 `);
 }
 

@@ -14,6 +14,7 @@ import { GET as listFeeds, POST as postFeed } from '../../../src/routes/api/v1/f
 import { DELETE as deleteFeed } from '../../../src/routes/api/v1/feeds/[id]/+server';
 import { insertGardener, insertPlant, moveStep, pinChangeTime } from '../../helpers/plants';
 import { issuePaths } from '../api/helpers';
+import { plantService } from '../../../src/lib/server/plants/plant-service';
 
 type Handler = (event: never) => Response | Promise<Response>;
 type User = { id: number; role: 'gardener'; name: string; email: string };
@@ -27,6 +28,12 @@ const postJson = (user: User | undefined, body: unknown) =>
 	call(postFeed, '/api/v1/feeds', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body), user });
 const tokenOf = (url: string) => new URL(url).pathname.replace(/^\/feeds\//, '').replace(/\.ics$/, '');
 const fetchFeed = (token: string, headers: Record<string, string> = {}) => call(getFeed, `/feeds/${token}.ics`, { headers, params: { token } });
+
+/** Each event of a calendar (read with ical.js) by UID: its start day and SEQUENCE. */
+function eventsOf(ics: string): Map<string, { start: string; sequence: number }> {
+	const events = new ICAL.Component(ICAL.parse(ics)).getAllSubcomponents('vevent');
+	return new Map(events.map((e) => [String(e.getFirstPropertyValue('uid')), { start: String(e.getFirstPropertyValue('dtstart')), sequence: Number(e.getFirstPropertyValue('sequence')) }]));
+}
 
 let pim: User;
 let sol: User;
@@ -134,6 +141,26 @@ describe('serving a feed', () => {
 			.find((e) => e.getFirstPropertyValue('uid') === `${step.uid}@bunchline`)!;
 		expect(moved.getFirstPropertyValue('sequence')).toBe(step.sequence + 1);
 		expect(String(moved.getFirstPropertyValue('dtstamp'))).toBe('2026-03-05T09:30:00Z');
+		expect((await fetchFeed(token, { 'if-none-match': after.headers.get('etag')! })).status).toBe(304);
+	});
+
+	it('a milestone the gardener logs re-times the plan: the calendar polling with its ETag then gets 200, the re-timed steps and a new ETag', async () => {
+		const before = await fetchFeed(token);
+		const etag = before.headers.get('etag')!;
+		const uidsBefore = eventsOf(await before.text());
+		expect((await fetchFeed(token, { 'if-none-match': etag })).status).toBe(304);
+		const { moved } = await plantService.log(pim, plantId, { kind: 'leaves', on: '2026-06-01', generation: 0, leaves: 30 });
+		expect(moved.length).toBeGreaterThan(0);
+		const after = await fetchFeed(token, { 'if-none-match': etag });
+		expect(after.status).toBe(200);
+		expect(after.headers.get('etag')).not.toBe(etag);
+		const uidsAfter = eventsOf(await after.text());
+		const inFeed = moved.filter((x) => uidsAfter.has(`${x.uid}@bunchline`));
+		expect(inFeed.length).toBeGreaterThan(0);
+		for (const m of inFeed) {
+			expect(uidsAfter.get(`${m.uid}@bunchline`)!.start).toBe(m.toLikely);
+			expect(uidsAfter.get(`${m.uid}@bunchline`)!.sequence).toBeGreaterThan(uidsBefore.get(`${m.uid}@bunchline`)?.sequence ?? -1);
+		}
 		expect((await fetchFeed(token, { 'if-none-match': after.headers.get('etag')! })).status).toBe(304);
 	});
 
