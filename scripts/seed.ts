@@ -6,6 +6,7 @@ import { environmentOrExit, parseEnvironment } from '../src/lib/server/env.js';
 import { defaultFeeding, referenceClimateSlug } from '../src/lib/care';
 import { hashPassword } from '../src/lib/server/auth/password';
 import { nurserySettings, users } from '../src/lib/server/db/schema';
+import { seedBoard } from './seed-board';
 import { DEMO_ACCOUNTS, DEMO_NURSERY, DEMO_PASSWORD } from './demo.mjs';
 import { seedSales } from './seed-sales';
 
@@ -39,6 +40,7 @@ export async function seedDemo(url: string): Promise<void> {
 			.values(DEMO_ACCOUNTS.map((a) => ({ ...a, role: a.role as 'owner' | 'staff' | 'gardener', passwordHash, emailVerifiedAt: now })))
 			.onConflictDoNothing({ target: users.email });
 		await seedSales(db, storePlan);
+		await seedBoard();
 	} finally {
 		await client.end();
 	}
