@@ -42,8 +42,17 @@ const byRole: Record<Role, NavLink[]> = {
 /** Every signed-in person's own settings. */
 const accountLink: NavLink = { href: '/settings/account', label: 'Account' };
 
-export function navFor(role: Role | null): NavLink[] {
-	return role ? [...byRole[role], ...publicLinks, accountLink] : publicLinks;
+export interface NavGroups {
+	/** The role's own work: the second row of the header on a wide screen. */
+	work: NavLink[];
+	/** The public site, the same for everyone. */
+	site: NavLink[];
+	/** The signed-in person's account settings, beside "Sign out". */
+	account: NavLink | null;
+}
+
+export function navFor(role: Role | null): NavGroups {
+	return { work: role ? byRole[role] : [], site: publicLinks, account: role ? accountLink : null };
 }
 
 /** Where each role lands after signing in. */

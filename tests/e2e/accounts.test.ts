@@ -130,6 +130,8 @@ describe('the team page, as a new owner tries it', () => {
 		await page.getByRole('heading', { name: `Make ${teo} owner?` }).waitFor();
 		await expectAccessible(page);
 		await page.getByRole('link', { name: 'Cancel' }).click();
+		// The question goes once the page has loaded again; choosing before that would be re-drawn away.
+		await page.getByRole('heading', { name: `Make ${teo} owner?` }).waitFor({ state: 'detached' });
 		await expect.poll(() => page.getByLabel(`Role of ${teo}`).first().inputValue()).toBe('staff');
 		await page.getByLabel(`Role of ${teo}`).first().selectOption('owner');
 		await page.getByLabel(`Role of ${teo}`).first().locator('xpath=ancestor::form').getByRole('button', { name: 'Change…' }).click();
