@@ -7,8 +7,10 @@ import type { Component } from 'svelte';
 import { z } from 'zod';
 import { PLANT_STAGES, type PlantStage } from '$lib/care';
 
-/** Guides are filed under the plant's stages, the same words the plans and the chart use. */
-export const GUIDE_STAGES = PLANT_STAGES.map((s) => s.id) as [PlantStage, ...PlantStage[]];
+// Defined beside the board's vocabulary so that schemas and scripts can use it without this
+// module's build-time import of the Markdown files.
+import { GUIDE_STAGES } from './board/vocabulary';
+export { GUIDE_STAGES };
 export type GuideStage = PlantStage;
 
 export const guideFrontmatter = z

@@ -7,6 +7,12 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../scripts/demo.mjs';
 import { seedDemo } from '../../scripts/seed';
 import { ID_MAX } from '../../src/lib/schema/fields';
 import { ROLES } from '../../src/lib/schema/auth';
+import { adjustSchema, claimSchema, marketDaySchema, moveSchema, receiveSchema, saleIdSchema, saleSchema, waitlistSchema } from '../../src/lib/schema/stock';
+import { climateFormSchema, cultivarFormSchema, settingsFormSchema } from '../../src/lib/schema/catalogue';
+import { milestoneSchema, plantSettingsFormSchema } from '../../src/lib/schema/plant';
+import { askSchema, postSchema } from '../../src/lib/schema/questions';
+import { guideSchema } from '../../src/lib/schema/guides';
+import { reminderSettingsSchema } from '../../src/lib/schema/delivery';
 import { db } from '../../src/lib/server/db';
 import { tableCounts } from '../helpers/db';
 import { postForm, signedIn } from './helpers';
@@ -15,11 +21,20 @@ fc.configureGlobal({ seed: process.env.FORM_FUZZ_SEED === 'random' ? Date.now() 
 
 let owner: string;
 let gardener: string;
+let staff: string;
+/** A demo gardener with claimed plants, and one of those plants and a question on the board. */
+let grower: string;
+let plantId = 0;
+let questionId = 0;
 
 beforeAll(async () => {
 	await seedDemo(process.env.DATABASE_URL!);
 	owner = await signedIn(DEMO_ACCOUNTS[0].email, DEMO_PASSWORD);
 	gardener = await signedIn(DEMO_ACCOUNTS[5].email, DEMO_PASSWORD);
+	staff = await signedIn(DEMO_ACCOUNTS[1].email, DEMO_PASSWORD);
+	grower = await signedIn(DEMO_ACCOUNTS[3].email, DEMO_PASSWORD);
+	[{ id: plantId }] = [...(await db.execute<{ id: number }>(sql`select p.id from plants p join users u on u.id = p.gardener_id where u.email = ${DEMO_ACCOUNTS[3].email} order by p.id limit 1`))];
+	[{ id: questionId }] = [...(await db.execute<{ id: number }>(sql`select id from questions order by id limit 1`))];
 });
 // Fuzzed sign-ins count against this machine's address; later test files sign in from it too.
 afterEach(() => db.execute(sql`delete from sign_in_attempts`));
@@ -47,6 +62,28 @@ async function jobsSettled(): Promise<void> {
 	throw new Error('the job queue did not settle');
 }
 
+/** The fields a form schema reads (its zod object's keys), each given any nasty value. */
+function fieldsOf(schema: unknown): Record<string, fc.Arbitrary<string>> {
+	const keys = new Set<string>();
+	// zod 4 keeps an object's keys in def.shape; pipes, transforms and unions wrap other schemas.
+	const walk = (s: unknown, depth = 0): void => {
+		const def = (s as { _zod?: { def?: Record<string, unknown> } })?._zod?.def;
+		if (!def || depth > 6) return;
+		if (def.shape) for (const k of Object.keys(def.shape as object)) keys.add(k);
+		for (const inner of [def.in, def.out, def.innerType, def.schema, ...((def.options as unknown[]) ?? [])]) if (inner) walk(inner, depth + 1);
+	};
+	walk(schema);
+	if (keys.size === 0) throw new Error(`no object fields in a ${(schema as { _zod?: { def?: { type?: string } } })._zod?.def?.type} schema`);
+	return Object.fromEntries([...keys].map((k) => [k, nasty]));
+}
+
+/** Rows of the sale side, the plants and the board: a refused request adds or removes none. */
+async function moreCounts(): Promise<Record<string, number>> {
+	const tables = ['stock_batches', 'stock_movements', 'market_days', 'sales', 'plants', 'milestones', 'plan_steps', 'cultivars', 'cultivar_changes', 'climate_profiles', 'waitlist_entries', 'uploads', 'calendar_feeds', 'reminders', 'question_photos', 'plan_changes', 'reminder_preferences'];
+	const rows = await db.execute<{ t: string; n: number }>(sql.raw(tables.map((t) => `select '${t}' as t, count(*)::int as n from ${t}`).join(' union all ')));
+	return Object.fromEntries([...rows].map((r) => [r.t, r.n]));
+}
+
 /** A form: some of the expected fields (any value), plus maybe fields nobody expects. */
 function formOf(fields: Record<string, fc.Arbitrary<string>>): fc.Arbitrary<Record<string, string>> {
 	return fc
@@ -65,7 +102,25 @@ const ACTIONS: { path: string; who?: () => string; form: fc.Arbitrary<Record<str
 	{ path: '/nursery/team?/invite', who: () => owner, form: formOf({ email, role }) },
 	// Never "confirmed": a confirmed valid change is not a rejected request, and would demote the demo owner.
 	{ path: '/nursery/team?/role', who: () => owner, form: formOf({ userId: id, role, confirmed: nasty.filter((v) => v !== 'yes') }) },
-	{ path: '/settings/account?/password', who: () => gardener, form: formOf({ currentPassword: nasty, password: nasty }) }
+	{ path: '/settings/account?/password', who: () => gardener, form: formOf({ currentPassword: nasty, password: nasty }) },
+	{ path: '/nursery/stall?/sell', who: () => staff, form: formOf(fieldsOf(saleSchema)) },
+	{ path: '/nursery/stall?/undo', who: () => staff, form: formOf(fieldsOf(saleIdSchema)) },
+	{ path: '/nursery/stock?/receive', who: () => owner, form: formOf(fieldsOf(receiveSchema)) },
+	{ path: '/nursery/stock?/adjust', who: () => staff, form: formOf(fieldsOf(adjustSchema)) },
+	{ path: '/nursery/stock?/move', who: () => staff, form: formOf(fieldsOf(moveSchema)) },
+	{ path: '/nursery/stock?/marketDay', who: () => staff, form: formOf(fieldsOf(marketDaySchema)) },
+	{ path: '/nursery/cultivars/new', who: () => owner, form: formOf(fieldsOf(cultivarFormSchema)) },
+	{ path: '/nursery/climates', who: () => owner, form: formOf(fieldsOf(climateFormSchema)) },
+	{ path: '/nursery/settings', who: () => owner, form: formOf(fieldsOf(settingsFormSchema)) },
+	{ path: '/cultivars?/wait', form: formOf(fieldsOf(waitlistSchema)) },
+	{ path: '/claim/abcdefghijklmnopqrstuvwxyz234567', who: () => gardener, form: formOf(fieldsOf(claimSchema)) },
+	{ path: '/plants/[plant]?/settings', who: () => grower, form: formOf(fieldsOf(plantSettingsFormSchema)) },
+	{ path: '/plants/[plant]/log?/log', who: () => grower, form: formOf(fieldsOf(milestoneSchema)) },
+	{ path: '/settings?/saveReminders', who: () => grower, form: formOf(fieldsOf(reminderSettingsSchema)) },
+	{ path: '/ask', who: () => grower, form: formOf(fieldsOf(askSchema)) },
+	{ path: '/questions/[question]?/reply', who: () => grower, form: formOf(fieldsOf(postSchema)) },
+	{ path: '/nursery/questions/[question]?/answer', who: () => staff, form: formOf(fieldsOf(postSchema)) },
+	{ path: '/nursery/guides/new', who: () => staff, form: formOf(fieldsOf(guideSchema)) }
 ];
 
 describe('ASVS 2.2.1 every form action under arbitrary input', () => {
@@ -74,10 +129,11 @@ describe('ASVS 2.2.1 every form action under arbitrary input', () => {
 			await fc.assert(
 				fc.asyncProperty(action.form, async (fields) => {
 					await jobsSettled();
-					const before = await tableCounts();
-					const res = await postForm(action.path, fields, action.who?.());
+					const before = { ...(await tableCounts()), ...(await moreCounts()) };
+					const path = action.path.replace('[plant]', String(plantId)).replace('[question]', String(questionId));
+					const res = await postForm(path, fields, action.who?.());
 					expect(res.status, JSON.stringify(fields).slice(0, 300)).toBeLessThan(500);
-					if (res.status >= 400) expect(await tableCounts()).toEqual(before);
+					if (res.status >= 400) expect({ ...(await tableCounts()), ...(await moreCounts()) }).toEqual(before);
 				})
 			);
 		});

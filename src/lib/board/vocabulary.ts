@@ -3,6 +3,10 @@
  * schemas, the pg enums and the pages derive from these.
  */
 import type { CultivarGroup } from '../care/types';
+import { PLANT_STAGE_IDS, type PlantStage } from '../care/stages';
+
+/** Guides are filed under the plant's stages, the same words the plans and the chart use. */
+export const GUIDE_STAGES = PLANT_STAGE_IDS as [PlantStage, ...PlantStage[]];
 
 export const GUIDE_STATUSES = ['draft', 'published'] as const;
 export type GuideStatus = (typeof GUIDE_STATUSES)[number];

@@ -9,6 +9,12 @@ export const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f]/;
 /** Bidirectional overrides and isolates: they reorder text in e-mail bodies and pages (spoofing). */
 export const BIDI_CONTROLS = /[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/;
 
+/** Control characters a typed text may not hold: line breaks and tabs are fine, NUL and escapes are not (PostgreSQL refuses NUL). */
+export const TEXT_CONTROL_CHARACTERS = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/;
+export const TEXT_CONTROL_MESSAGE = 'Remove the control characters (invisible codes pasted with the text)';
+/** For multi-line texts (question bodies, answers, guides): refuses TEXT_CONTROL_CHARACTERS. */
+export const withoutControls = (v: string) => !TEXT_CONTROL_CHARACTERS.test(v);
+
 export const idField = (message = 'Unknown id') =>
 	z.coerce.number({ error: message }).int(message).positive(message).max(ID_MAX, message);
 

@@ -14,13 +14,15 @@ export function fieldErrors(error: z.ZodError): FieldErrors {
 
 /** Reads a form into a plain object; repeated names become arrays. Files are dropped. */
 export function formToObject(data: FormData): Record<string, string | string[]> {
-	const out: Record<string, string | string[]> = {};
+	// A Map, not an object: a field named "toString" must not meet Object.prototype. No form of
+	// ours has a "__proto__" field, and SvelteKit cannot echo one back: it is dropped.
+	const out = new Map<string, string | string[]>();
 	for (const [key, value] of data.entries()) {
-		if (typeof value !== 'string') continue;
-		const prev = out[key];
-		out[key] = prev === undefined ? value : Array.isArray(prev) ? [...prev, value] : [prev, value];
+		if (typeof value !== 'string' || key === '__proto__') continue;
+		const prev = out.get(key);
+		out.set(key, prev === undefined ? value : Array.isArray(prev) ? [...prev, value] : [prev, value]);
 	}
-	return out;
+	return Object.fromEntries(out);
 }
 
 /** Secrets are never echoed back into a form. */

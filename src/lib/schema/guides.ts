@@ -1,7 +1,7 @@
 import { z } from 'zod';
+import { CONTROL_CHARACTERS, TEXT_CONTROL_MESSAGE, idField, withoutControls } from './fields';
 import { lineField } from './fields';
-import { BOARD_BOUNDS, CULTIVAR_GROUPS } from '../board/vocabulary';
-import { GUIDE_STAGES } from '../guides';
+import { BOARD_BOUNDS, CULTIVAR_GROUPS, GUIDE_STAGES } from '../board/vocabulary';
 
 const b = BOARD_BOUNDS;
 
@@ -29,7 +29,8 @@ export const titleField = z
 	.string({ error: 'Give it a title' })
 	.trim()
 	.min(b.title.min, `A title has at least ${b.title.min} characters`)
-	.max(b.title.max, `A title has at most ${b.title.max} characters`);
+	.max(b.title.max, `A title has at most ${b.title.max} characters`)
+	.refine((v) => !CONTROL_CHARACTERS.test(v), 'Remove the control characters (such as line breaks or tabs)');
 
 export const guideSchema = z.object({
 	title: titleField,
@@ -37,12 +38,14 @@ export const guideSchema = z.object({
 		.string({ error: 'Write a one-sentence summary' })
 		.trim()
 		.min(b.summary.min, 'Write a one-sentence summary')
-		.max(b.summary.max, `A summary has at most ${b.summary.max} characters`),
+		.max(b.summary.max, `A summary has at most ${b.summary.max} characters`)
+		.refine((v) => !CONTROL_CHARACTERS.test(v), 'Remove the control characters (such as line breaks or tabs)'),
 	body: z
 		.string({ error: 'Write the guide' })
 		.min(b.guideBody.min, 'Write the guide')
 		.max(b.guideBody.max, `A guide has at most ${b.guideBody.max.toLocaleString('en')} characters`)
-		.refine((s) => s.trim().length > 0, 'Write the guide'),
+		.refine((s) => s.trim().length > 0, 'Write the guide')
+		.refine(withoutControls, TEXT_CONTROL_MESSAGE),
 	/** Empty: made from the title. */
 	slug: z.union([z.literal(''), slugField]).optional().default(''),
 	stages: ticked(GUIDE_STAGES, 'Choose stages from the list'),
@@ -57,9 +60,9 @@ export const guideImageSchema = z.object({
 	alt: lineField({ required: 'Describe the image in a few words (read aloud to those who cannot see it)', max: b.imageAlt.max, tooLong: `At most ${b.imageAlt.max} characters` })
 });
 
-export const revisionSchema = z.object({ revision: z.coerce.number({ error: 'Choose a revision' }).int().positive('Choose a revision') });
+export const revisionSchema = z.object({ revision: idField('Choose a revision') });
 
-export const previewSchema = z.object({ markdown: z.string().max(b.guideBody.max, `At most ${b.guideBody.max.toLocaleString('en')} characters`) });
+export const previewSchema = z.object({ markdown: z.string().max(b.guideBody.max, `At most ${b.guideBody.max.toLocaleString('en')} characters`).refine(withoutControls, TEXT_CONTROL_MESSAGE) });
 
 export const guideFilterSchema = z.object({
 	stage: z.enum(GUIDE_STAGES).optional().catch(undefined),

@@ -3,6 +3,7 @@
  * send strings) and the JSON API (numbers), so both refuse the same input with the same words.
  */
 import { z } from 'zod';
+import { ID_MAX } from './fields';
 import { emailField } from './auth';
 import { isoDateField, monthlyMeansField, unitsField } from './plan';
 
@@ -40,7 +41,7 @@ const wholeNumber = (what: string, min: number, max: number) => {
 	return z.preprocess(numeric, z.number({ error: message }).int(message).min(min, message).max(max, message));
 };
 
-const idField = (what: string) => z.preprocess(numeric, z.number({ error: `Choose ${what}` }).int(`Choose ${what}`).positive(`Choose ${what}`));
+const idField = (what: string) => z.preprocess(numeric, z.number({ error: `Choose ${what}` }).int(`Choose ${what}`).positive(`Choose ${what}`).max(ID_MAX, `Choose ${what}`));
 
 const priceMessage = `Enter a price from 0 to ${STOCK_LIMITS.priceMax}, like 12.50`;
 /** A price in currency units with at most two decimals; stored as whole cents. */
