@@ -15,6 +15,7 @@ import { guideSchema } from '../../src/lib/schema/guides';
 import { reminderSettingsSchema } from '../../src/lib/schema/delivery';
 import { db } from '../../src/lib/server/db';
 import { tableCounts } from '../helpers/db';
+import { nastyText, schemaKeys } from './fuzz';
 import { postForm, signedIn } from './helpers';
 
 fc.configureGlobal({ seed: process.env.FORM_FUZZ_SEED === 'random' ? Date.now() : 20261202, numRuns: 40 });
@@ -39,13 +40,7 @@ beforeAll(async () => {
 // Fuzzed sign-ins count against this machine's address; later test files sign in from it too.
 afterEach(() => db.execute(sql`delete from sign_in_attempts`));
 
-const nasty = fc.oneof(
-	fc.string(),
-	fc.string({ unit: 'grapheme' }),
-	fc.string({ unit: 'binary', maxLength: 40 }),
-	fc.string({ minLength: 3000, maxLength: 12000 }),
-	fc.constantFrom('\u0000', 'a\u0000b', 'Name\u202Egnp.exe', '\r\nBcc: x@evil.test', '<script>alert(1)</script>', "' or 1=1 --", '../../etc/passwd', '%00', '-1', '1e309', String(ID_MAX + 1), '0x10', ' ', '')
-);
+const nasty = nastyText;
 // No address of a real account: its mail job would write a token row later, in the middle of another run's count.
 const email = fc.oneof(nasty, fc.emailAddress(), fc.constantFrom('a@b', 'x@example.test\u0000', 'OWNER@EXAMPLE.TEST '));
 const token = fc.oneof(nasty, fc.stringMatching(/^[a-z2-7]{32}$/));
@@ -64,17 +59,7 @@ async function jobsSettled(): Promise<void> {
 
 /** The fields a form schema reads (its zod object's keys), each given any nasty value. */
 function fieldsOf(schema: unknown): Record<string, fc.Arbitrary<string>> {
-	const keys = new Set<string>();
-	// zod 4 keeps an object's keys in def.shape; pipes, transforms and unions wrap other schemas.
-	const walk = (s: unknown, depth = 0): void => {
-		const def = (s as { _zod?: { def?: Record<string, unknown> } })?._zod?.def;
-		if (!def || depth > 6) return;
-		if (def.shape) for (const k of Object.keys(def.shape as object)) keys.add(k);
-		for (const inner of [def.in, def.out, def.innerType, def.schema, ...((def.options as unknown[]) ?? [])]) if (inner) walk(inner, depth + 1);
-	};
-	walk(schema);
-	if (keys.size === 0) throw new Error(`no object fields in a ${(schema as { _zod?: { def?: { type?: string } } })._zod?.def?.type} schema`);
-	return Object.fromEntries([...keys].map((k) => [k, nasty]));
+	return Object.fromEntries(schemaKeys(schema).map((k) => [k, nasty]));
 }
 
 /** Rows of the sale side, the plants and the board: a refused request adds or removes none. */
@@ -154,6 +139,21 @@ describe('ASVS 2.2.1 the odd inputs that answered 500', () => {
 	it('userId=2147483648 on a role change is a 400, not a database error', async () => {
 		const res = await postForm('/nursery/team?/role', { userId: String(ID_MAX + 1), role: 'staff' }, owner);
 		expect(res.status).toBe(400);
+	});
+	it('a NUL byte in a market day\'s place is a 400 beside the place, not a database error', async () => {
+		const before = await moreCounts();
+		const res = await postForm('/nursery/stock?/marketDay', { on: '2026-12-05', place: 'Marrowby Quay\u0000' }, staff);
+		expect(res.status).toBe(400);
+		expect(await res.text()).toContain('control characters');
+		expect(await moreCounts()).toEqual(before);
+	});
+	it('a NUL byte in a stock adjustment\'s reason is a 400 beside the reason, and the count stays', async () => {
+		const [{ id }] = [...(await db.execute<{ id: number }>(sql`select id from stock_batches order by on_hand desc limit 1`))];
+		const before = await moreCounts();
+		const res = await postForm('/nursery/stock?/adjust', { batchId: String(id), change: '-1', reason: 'Broken\u0000 stem' }, staff);
+		expect(res.status).toBe(400);
+		expect(await res.text()).toContain('control characters');
+		expect(await moreCounts()).toEqual(before);
 	});
 	it('a name longer than its limit is refused with a message, not cut', async () => {
 		const res = await postForm('/signup?/create', { name: 'N'.repeat(81), email: 'long@example.test', password: 'lantern moss over the quay' });

@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { emailField } from './auth';
+import { lineField } from './fields';
 import { AGE_MAX_WEEKS, isoDateField } from './plan';
 import { priceField, STOCK_LIMITS } from './stock';
 
@@ -26,7 +27,7 @@ const ageMessage = `Enter the age at sale in whole weeks from 0 to ${AGE_MAX_WEE
 
 /** One row as csv-parse reads it (strings keyed by header). Blank e-mail and market are allowed: a gate sale without an address. */
 export const pastSaleRowSchema = z.object({
-	cultivar: z.string({ error: 'Give the cultivar' }).trim().min(1, 'Give the cultivar, by name or slug').max(80, 'A cultivar name has at most 80 characters'),
+	cultivar: lineField({ required: 'Give the cultivar, by name or slug', max: 80, tooLong: 'A cultivar name has at most 80 characters' }),
 	'sale date': isoDateField,
 	'age at sale (weeks)': z.preprocess(
 		(v) => (typeof v === 'string' && /^\s*\d+\s*$/.test(v) ? Number(v) : blank(v)),
@@ -34,7 +35,7 @@ export const pastSaleRowSchema = z.object({
 	),
 	'buyer e-mail': z.preprocess(blank, emailField.optional()),
 	price: priceField,
-	market: z.preprocess(blank, z.string().trim().max(STOCK_LIMITS.placeMax, `A market name has at most ${STOCK_LIMITS.placeMax} characters`).optional())
+	market: z.preprocess(blank, lineField({ required: 'Name the market', max: STOCK_LIMITS.placeMax, tooLong: `A market name has at most ${STOCK_LIMITS.placeMax} characters` }).optional())
 });
 export type PastSaleRow = z.infer<typeof pastSaleRowSchema>;
 

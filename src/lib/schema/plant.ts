@@ -5,10 +5,11 @@
  */
 import { z } from 'zod';
 import { LOSS_REASONS, MILESTONE_BOUNDS, MILESTONE_KINDS } from '$lib/plants/milestones';
+import { lineField, TEXT_CONTROL_MESSAGE, withoutControls } from './fields';
 import { isoDateField, monthlyMeansField, unitsField } from './plan';
 
 /** A climate profile's slug: built-in or the nursery's own, so the service checks it against the database. */
-const climateChoiceField = z.string({ error: 'Choose a climate' }).trim().min(1, 'Choose a climate');
+const climateChoiceField = lineField({ required: 'Choose a climate', max: 80, tooLong: 'Choose a climate from the list' });
 
 /** Blank form inputs mean "not given". */
 const blankToUndefined = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
@@ -28,7 +29,12 @@ export const MAX_GENERATION = 9;
 
 const noteField = z.preprocess(
 	(v) => (v === undefined || v === null ? '' : v),
-	z.string({ error: 'The note must be text' }).trim().max(MILESTONE_BOUNDS.noteLength, `Keep the note under ${MILESTONE_BOUNDS.noteLength} characters`)
+	z
+		.string({ error: 'The note must be text' })
+		.trim()
+		.max(MILESTONE_BOUNDS.noteLength, `Keep the note under ${MILESTONE_BOUNDS.noteLength} characters`)
+		// PostgreSQL refuses a NUL byte in text: refused here, it is a 400 beside the note rather than a 500.
+		.refine(withoutControls, TEXT_CONTROL_MESSAGE)
 );
 
 /**

@@ -3,7 +3,7 @@
  * send strings) and the JSON API (numbers), so both refuse the same input with the same words.
  */
 import { z } from 'zod';
-import { ID_MAX } from './fields';
+import { ID_MAX, lineField } from './fields';
 import { emailField } from './auth';
 import { isoDateField, monthlyMeansField, unitsField } from './plan';
 
@@ -59,11 +59,8 @@ export const fromCents = (cents: number) => cents / 100;
 /** "12.50": prices are shown with two decimals and no currency sign (the nursery's own currency). */
 export const formatPrice = (cents: number) => (cents / 100).toFixed(2);
 
-const slugField = z
-	.string({ error: 'Choose a cultivar' })
-	.trim()
-	.min(1, 'Choose a cultivar')
-	.max(80, 'Choose a cultivar from the list');
+/** A cultivar's slug; control characters are refused here (a NUL byte would reach the query). */
+const slugField = lineField({ required: 'Choose a cultivar', max: 80, tooLong: 'Choose a cultivar from the list' });
 
 const optionalMarketDay = z.preprocess((v) => (v === '' || v === 'nursery' || v === null ? undefined : v), idField('a market day').optional());
 
@@ -77,11 +74,7 @@ export const receiveSchema = z.object({
 });
 export type ReceiveInput = z.infer<typeof receiveSchema>;
 
-const reasonField = z
-	.string({ error: 'Say why the count changed' })
-	.trim()
-	.min(1, 'Say why the count changed')
-	.max(STOCK_LIMITS.reasonMax, `A reason has at most ${STOCK_LIMITS.reasonMax} characters`);
+const reasonField = lineField({ required: 'Say why the count changed', max: STOCK_LIMITS.reasonMax, tooLong: `A reason has at most ${STOCK_LIMITS.reasonMax} characters` });
 
 export const adjustSchema = z.object({
 	batchId: idField('a batch'),
@@ -106,11 +99,7 @@ export const moveSchema = z.object({
 
 export const marketDaySchema = z.object({
 	on: isoDateField,
-	place: z
-		.string({ error: 'Name the market' })
-		.trim()
-		.min(1, 'Name the market')
-		.max(STOCK_LIMITS.placeMax, `A place has at most ${STOCK_LIMITS.placeMax} characters`)
+	place: lineField({ required: 'Name the market', max: STOCK_LIMITS.placeMax, tooLong: `A place has at most ${STOCK_LIMITS.placeMax} characters` })
 });
 
 const optionalEmail = z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? undefined : v), emailField.optional());
