@@ -25,8 +25,10 @@ import { call, postJson, validBody } from '../integration/api/helpers';
 import { nastyText, schemaKeys } from './fuzz';
 import { baseUrl, signedIn } from './helpers';
 
-const SEED = process.env.API_FUZZ_SEED === 'random' ? Date.now() : 20261202;
-fc.configureGlobal({ seed: SEED, numRuns: 30 });
+const SEED = process.env.API_FUZZ_SEED === 'random' ? Date.now() : Number(process.env.API_FUZZ_SEED ?? 20261202);
+if (process.env.API_FUZZ_SEED === 'random') console.log(`API_FUZZ_SEED=${SEED}`);
+// Every case is a round trip to the server: report the first failing one as it is rather than spend minutes shrinking it.
+fc.configureGlobal({ seed: SEED, numRuns: 30, endOnFailure: true });
 
 // ---------------------------------------------------------------------------------------------
 // Requests over HTTP to the production build, through its hooks (session, origin check, limits).
@@ -70,6 +72,8 @@ function send({ method, path, cookie, body, type }: Sent): Promise<Answer> {
 			res.on('error', reject);
 		});
 		req.on('error', reject);
+		// A request the server never answers is a finding too: name it rather than time the whole test out.
+		req.setTimeout(15_000, () => req.destroy(new Error(`no answer in 15 s to ${method} ${path.slice(0, 300)}`)));
 		req.end(bytes);
 	});
 }
@@ -488,10 +492,11 @@ describe('ASVS 1.2.5 odd query strings: pagination, filters, sort', () => {
 		expect(Object.keys(TABLE_CHOICES).sort()).toEqual(schemaKeys(plantTableQuerySchema).sort());
 	});
 	for (const q of QUERY_ROUTES) {
-		it(`GET ${q.path} as ${q.as}: 200 or 400, never a 5xx`, async () => {
+		it(`GET ${q.path} as ${q.as}: 200 or 4xx, never a 5xx`, async () => {
 			await fc.assert(
 				fc.asyncProperty(queryOf(q.choices), async (query) => {
-					await expectSafe({ method: 'GET', path: `${q.path}?${query}`, cookie: q.who() }, [200, 400]);
+					// 431: Node refuses a request line over its 16 KB header limit before the app sees it.
+					await expectSafe({ method: 'GET', path: `${q.path}?${query}`, cookie: q.who() }, [200, 400, 431]);
 				}),
 				{ numRuns: 20 }
 			);
