@@ -9,9 +9,10 @@ import os from 'node:os';
 import autocannon from 'autocannon';
 import { demoCluster } from '../scripts/pg.mjs';
 import { migrateDatabase } from '../scripts/migrate.ts';
-import { seedDemo } from '../scripts/seed.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../scripts/demo.mjs';
 
+// The seed runs in this process: a scratch database is not production (no claim secret needed).
+process.env.BUNCHLINE_ENV ??= 'test';
 const DURATION_S = Number(process.env.BENCH_SECONDS ?? 8);
 const APP_PORT = 4391;
 const BARE_PORT = 4392;
@@ -23,8 +24,10 @@ const dbName = `bunchline_bench_${process.pid}`;
 cluster.createDatabase(dbName);
 const databaseUrl = cluster.url.replace(/\/[^/]+$/, `/${dbName}`);
 await migrateDatabase(databaseUrl);
-// The seed stores plans through the app's modules, which read DATABASE_URL.
+// The seed stores plans through the app's modules, which parse the environment when first
+// imported: set it (a scratch database is not production) before loading them.
 process.env.DATABASE_URL = databaseUrl;
+const { seedDemo } = await import('../scripts/seed.ts');
 await seedDemo(databaseUrl);
 
 const origin = `http://127.0.0.1:${APP_PORT}`;
