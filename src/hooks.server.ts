@@ -4,7 +4,7 @@ import { assertReadyToServe, config } from '$lib/server/config';
 import { isForbiddenCrossSiteForm } from '$lib/server/csrf';
 import { closeDb } from '$lib/server/db';
 import { stopJobs } from '$lib/server/jobs';
-import { publicApiLimit } from '$lib/server/api-limit';
+import { publicApiLimit, publicFormLimit } from '$lib/server/api-limit';
 import { DEFAULT_CACHE_CONTROL, SECURITY_HEADERS } from '$lib/server/security-headers.js';
 import { assertClaimSecret } from '$lib/server/secrets';
 
@@ -25,6 +25,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	const limited = publicApiLimit(event);
 	if (limited) return withHeaders(limited);
 	const { user, session } = await validateSessionCookie(event.cookies);
+	const formsLimited = publicFormLimit(event, Boolean(user));
+	if (formsLimited) return withHeaders(formsLimited);
 	event.locals.user = user;
 	event.locals.session = session;
 	const response = await resolve(event);

@@ -59,7 +59,10 @@ export function buildLibrary(modules: Record<string, MdsvexModule>): Guide[] {
 	return guides.sort((a, b) => a.order - b.order);
 }
 
-const library = buildLibrary(import.meta.glob<MdsvexModule>('/content/guides/*.md', { eager: true }));
+// Vite (the app, its build and the tests) turns the glob into the compiled guides. Scripts run by
+// plain Node through tsx (the demo seed, benchmarks) have no import.meta.env and no Markdown
+// compiler: there the library is empty, which only means no built-in guide to collide with.
+const library = buildLibrary(import.meta.env ? import.meta.glob<MdsvexModule>('/content/guides/*.md', { eager: true }) : {});
 
 /** Every built-in guide, in reading order. */
 export function listGuides(): Guide[] {

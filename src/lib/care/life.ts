@@ -16,6 +16,7 @@ import {
 	WAIST_HEIGHT_AFTER_FOLLOWERS_DEGREE_DAYS,
 	degreeDaysForLeaves,
 	leavesAtPlanting,
+	shootingToGreenCutDegreeDays,
 	shootingToHarvestDegreeDays
 } from './model';
 
@@ -44,6 +45,9 @@ export interface Life {
 	flagLeaf: Forecast;
 	shooting: Forecast;
 	budRemoval: Forecast;
+	/** The commercial grade: from here the bunch may be cut green and ripened off the plant. */
+	greenCut: Forecast;
+	/** The home harvest: fingers plump and just colouring on the plant. */
 	harvest: Forecast;
 	cutBackOn?: EpochDay;
 	stemRemovedOn?: EpochDay;
@@ -95,6 +99,7 @@ function stemLife(ctx: LifeContext, generation: number, birth: Forecast, born: D
 	let harvest = harvestLogged ?? after(shooting, shootingToHarvestDegreeDays(cultivar));
 	// A bunch is cut by the day its stem was cut back or removed.
 	for (const limit of [cutBackLogged, stemRemovedLogged]) if (limit) harvest = noLaterThan(harvest, limit);
+	const greenCut = harvestLogged ?? noLaterThan(after(shooting, shootingToGreenCutDegreeDays(cultivar)), harvest);
 	shooting = noLaterThan(shooting, harvest);
 	// A logged flower puts the flag leaf one leaf interval before it.
 	const flagLeaf = flagLogged ?? noLaterThan(shotLogged ? after(shotLogged, -oneLeaf) : reaching(grown, toShooting - oneLeaf), shooting);
@@ -111,6 +116,7 @@ function stemLife(ctx: LifeContext, generation: number, birth: Forecast, born: D
 		flagLeaf,
 		shooting,
 		budRemoval: noLaterThan(after(shooting, BUD_REMOVAL_AFTER_SHOOTING_DEGREE_DAYS), harvest),
+		greenCut,
 		harvest,
 		...(cutBackLogged ? { cutBackOn: cutBackLogged.observedDay } : {}),
 		...(stemRemovedLogged ? { stemRemovedOn: stemRemovedLogged.observedDay } : {}),

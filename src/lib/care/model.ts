@@ -89,13 +89,35 @@ export const WINDOW_SHARE_PER_GENERATION = 0.04;
 const WINDOW_SHARE_MAX = 0.5;
 
 /**
+ * Cooler gardens get wider windows. The published record spreads widest where bananas are
+ * marginal: the Canarian growers report 15 to 24 months from planting to first cut, against the
+ * tropical figures' few weeks either side of a year. What spreads it there is what the plan does
+ * not know: a cool season warmer or colder than the normal, the delay short days put on the
+ * flower in the subtropics (Turner, Fortescue & Thomas, Braz. J. Plant Physiol. 19:463, 2007),
+ * sheltered or exposed sites. The share grows in proportion to how far the garden's year falls
+ * short of the reference climate's on the leaf clock (`climateCoolness`); the gain is fitted, not
+ * taken from a source: the smallest step of 0.05 at which the plan's harvest windows over
+ * plantings in every month span the Canarian range with half a month to spare (0.45 leaves the
+ * windows ending at 24.0 months; docs/calibration.md).
+ */
+export const COOL_WINDOW_GAIN = 0.55;
+
+/**
  * Annual thermal time on the bunch-filling clock (base 14 °C) below which a banana cannot fruit
  * within a human planning horizon: a bunch would take over two years to fill.
  */
 export const MIN_ANNUAL_DEGREE_DAYS = 600;
 
-export function windowShare(generation: number): number {
-	return Math.min(WINDOW_SHARE_MAX, WINDOW_SHARE_BASE + WINDOW_SHARE_PER_GENERATION * generation);
+/**
+ * How far a garden's year falls short of the reference climate's on the leaf clock: 0 in the
+ * reference and anything warmer, approaching 1 as the year approaches nothing.
+ */
+export function climateCoolness(annualLeafDegreeDays: number): number {
+	return Math.max(0, 1 - annualLeafDegreeDays / REFERENCE_YEAR_DEGREE_DAYS);
+}
+
+export function windowShare(generation: number, coolness = 0): number {
+	return Math.min(WINDOW_SHARE_MAX, WINDOW_SHARE_BASE + WINDOW_SHARE_PER_GENERATION * generation + COOL_WINDOW_GAIN * coolness);
 }
 
 export function leavesPerDegreeDay(cultivar: Cultivar): number {
@@ -115,8 +137,16 @@ export function leavesAtPlanting(cultivar: Cultivar, thermalAgeDegreeDays: numbe
 	return Math.min(cultivar.leavesToShooting.value - NEW_LEAVES_BEFORE_FEEDING, thermalAgeDegreeDays * leavesPerDegreeDay(cultivar));
 }
 
-/** Flowering to the opening of the home-harvest window, degree-days. */
-export function shootingToHarvestDegreeDays(cultivar: Cultivar): number {
+/**
+ * Flowering to the commercial harvest grade, degree-days: the fingers are full enough to cut the
+ * bunch green and ripen it off the plant. The published thermal time carried over to the leaf clock.
+ */
+export function shootingToGreenCutDegreeDays(cultivar: Cultivar): number {
 	const carryOver = (FILL_CARRY_OVER_C - LEAF_RESPONSE.baseC) / (FILL_CARRY_OVER_C - PUBLISHED_FILL_BASE_C);
-	return cultivar.degreeDaysShootingToHarvest.value * carryOver * HOME_RIPENESS_FACTOR;
+	return cultivar.degreeDaysShootingToHarvest.value * carryOver;
+}
+
+/** Flowering to the home harvest (fingers plump and just colouring), degree-days. */
+export function shootingToHarvestDegreeDays(cultivar: Cultivar): number {
+	return shootingToGreenCutDegreeDays(cultivar) * HOME_RIPENESS_FACTOR;
 }

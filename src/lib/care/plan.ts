@@ -8,7 +8,7 @@ import { formatIsoDate, parseIsoDate, type EpochDay } from './dates';
 import { leafClockFor, thermalClockFor, type ThermalClock } from './thermal';
 import { factOn, from, pinnedWindow, shiftWindow, windowOf, type Forecast, type Window } from './forecast';
 import { followerLife, leavesOutAtPlanting, motherLife, type Life, type LifeContext } from './life';
-import { NEW_LEAVES_BEFORE_FEEDING, STEM_REMOVAL_AFTER_CUT_BACK_DAYS, degreeDaysForLeaves, windowShare } from './model';
+import { NEW_LEAVES_BEFORE_FEEDING, STEM_REMOVAL_AFTER_CUT_BACK_DAYS, climateCoolness, degreeDaysForLeaves, windowShare } from './model';
 import { defaultFeeding, feedingSteps, validateFeeding } from './feeding';
 import { PlanInputError, generationsOf, planInputIssues } from './validate';
 import { PLAN_BOUNDS, STEP_KINDS } from './vocabulary';
@@ -38,6 +38,8 @@ export const GUIDE_FOR: Readonly<Record<StepKind, string>> = {
 interface Context extends LifeContext {
 	clock: ThermalClock;
 	units: Units;
+	/** How far the garden's year falls short of the reference climate's: widens every window. */
+	coolness: number;
 }
 
 function step(kind: StepKind, generation: number, w: Window, text: wording.StepText): Step {
@@ -56,12 +58,20 @@ function step(kind: StepKind, generation: number, w: Window, text: wording.StepT
 	return s;
 }
 
+/**
+ * The harvest window opens when the bunch could first be cut green and ripened off the plant,
+ * and its likely day is the home harvest on the plant; a logged harvest stays where it was logged.
+ */
+function opensAtGreenCut(ripe: Window, green: Window): Window {
+	return ripe.observed ? ripe : { ...ripe, earliest: Math.min(ripe.earliest, green.earliest) };
+}
+
 /** The steps of one stem's life, from its followers to the removal of its stem. */
 function lifeSteps(ctx: Context, life: Life): { steps: Step[]; end: EpochDay } {
 	const g = life.generation;
-	const share = windowShare(g);
+	const share = windowShare(g, ctx.coolness);
 	const win = (f: Forecast) => windowOf(ctx.clock, f, share, ctx.plantDay);
-	const harvest = win(life.harvest);
+	const harvest = opensAtGreenCut(win(life.harvest), win(life.greenCut));
 	const shooting = win(life.shooting);
 	const cutBack: Window = life.cutBackOn !== undefined ? pinnedWindow(life.cutBackOn, true) : { ...harvest, observed: false };
 	const stemRemoval = life.stemRemovedOn !== undefined ? pinnedWindow(life.stemRemovedOn, true) : shiftWindow(cutBack, STEM_REMOVAL_AFTER_CUT_BACK_DAYS);
@@ -87,7 +97,7 @@ function lifeSteps(ctx: Context, life: Life): { steps: Step[]; end: EpochDay } {
 /** Feeding starts at the second new leaf; a logged count showing it already happened brings it forward. */
 function firstFeedingWindow(ctx: Context, observed: Observed, leavesOutAtPlanting: number): Window {
 	const planting = factOn(ctx.clock, ctx.plantDay);
-	const forecast = windowOf(ctx.clock, from(planting, degreeDaysForLeaves(ctx.cultivar, NEW_LEAVES_BEFORE_FEEDING)), windowShare(0), ctx.plantDay);
+	const forecast = windowOf(ctx.clock, from(planting, degreeDaysForLeaves(ctx.cultivar, NEW_LEAVES_BEFORE_FEEDING)), windowShare(0, ctx.coolness), ctx.plantDay);
 	const count = observed.leafCount;
 	if (!count || count.leaves < leavesOutAtPlanting + NEW_LEAVES_BEFORE_FEEDING) return forecast;
 	const countDay = parseIsoDate(count.on);
@@ -106,7 +116,7 @@ function compareSteps(a: { step: Step; likely: number }, b: { step: Step; likely
 /** A stem lost before its followers showed leaves no follower: the mat ends with it. */
 function leavesAFollower(ctx: Context, life: Life): boolean {
 	if (life.lostOn === undefined) return true;
-	const followers = windowOf(ctx.clock, life.followers, windowShare(life.generation), ctx.plantDay);
+	const followers = windowOf(ctx.clock, life.followers, windowShare(life.generation, ctx.coolness), ctx.plantDay);
 	return followers.likely <= life.lostOn;
 }
 
@@ -119,7 +129,7 @@ export function computePlan(input: PlanInput): Plan {
 	const feeding: FeedingSettings = input.feeding ?? defaultFeeding;
 	validateFeeding(feeding);
 	const observed = input.observed ?? {};
-	const ctx: Context = { cultivar: input.cultivar, clock, plantDay, units: input.units ?? 'metric' };
+	const ctx: Context = { cultivar: input.cultivar, clock, plantDay, units: input.units ?? 'metric', coolness: climateCoolness(clock.commonYear) };
 
 	const steps: Step[] = [step('planting', 0, pinnedWindow(plantDay), wording.plantingText(ctx.cultivar))];
 	const lost: { generation: number; on: string }[] = [];

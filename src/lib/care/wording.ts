@@ -97,6 +97,7 @@ export function harvestText(cultivar: Cultivar, units: Units, fillDays: number):
 		title: 'Harvest the bunch',
 		detail:
 			'The bunch is ready when the fingers are plump, have filled out and lost their sharp angles, and the first ones are just starting to colour. ' +
+			'From the start of this window the fingers may already be full enough to cut the bunch green and ripen it off the plant (see the ripening step); left on the plant, expect it ripe around the likely date. ' +
 			`Cut the whole bunch (it can weigh ${massPhrase(cultivar.bunchMassKg.value, units)} or more).` +
 			beyondRecords,
 		cautions: cautions(CAUTION.blades, CAUTION.falling, CAUTION.sap)

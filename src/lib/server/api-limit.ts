@@ -1,12 +1,12 @@
 /**
- * One limit for every /api/ route, per client address: a token bucket that refills evenly over a
- * minute. It guards this instance's CPU (a calendar costs tens of milliseconds to write the first
+ * One limit for every /api/ route, and one for the form submissions of signed-out visitors, per
+ * client address: token buckets that refill evenly over a minute. It guards this instance's CPU (a calendar costs tens of milliseconds to write the first
  * time), so each instance counts in its own memory: behind a load balancer with n instances an
  * address gets up to n times the budget, which is what n instances can serve. Limits that protect
  * accounts (sign-in, mail, sign-up) are different: they are counted in PostgreSQL, shared by all.
  */
 import { LRUCache } from 'lru-cache';
-import type { RequestEvent } from '@sveltejs/kit';
+import { text, type RequestEvent } from '@sveltejs/kit';
 import { apiError } from './api';
 import { config } from './config';
 
@@ -47,3 +47,25 @@ export function publicApiLimit(event: Pick<RequestEvent, 'url' | 'getClientAddre
 	response.headers.set('retry-after', String(verdict.retryAfterS));
 	return response;
 }
+
+export type Limiter = ReturnType<typeof tokenBucketLimiter>;
+
+/**
+ * Signed-out form submissions (sign-in, sign-up, reset, claim, waitlist) each cost database work
+ * before they can be refused; a flood of them from one address queued every other visitor's
+ * sign-in behind it on the connection pool (bench/routes.mjs). Over the budget, a plain 429 that
+ * costs nothing. Signed-in people are not counted here: their actions carry their own limits.
+ */
+export function formPostLimiter(limiter: Limiter) {
+	return (event: Pick<RequestEvent, 'url' | 'request' | 'getClientAddress'>, signedIn: boolean): Response | null => {
+		if (signedIn || event.request.method !== 'POST' || event.url.pathname.startsWith('/api/')) return null;
+		const verdict = limiter.take(event.getClientAddress());
+		if (verdict.allowed) return null;
+		return text(`Too many form submissions from this address: wait ${verdict.retryAfterS} s and try again.`, {
+			status: 429,
+			headers: { 'retry-after': String(verdict.retryAfterS) }
+		});
+	};
+}
+
+export const publicFormLimit = formPostLimiter(tokenBucketLimiter(config.formPostsPerMinute));

@@ -23,6 +23,12 @@ export const DEFAULTS = /** @type {const} */ ({
 	bodySizeLimit: '11M',
 	/** Requests a minute one address may make to /api/ (each app instance counts its own). */
 	apiRequestsPerMinute: 120,
+	/**
+	 * Form submissions a minute one signed-out address may make (sign-in, sign-up, resets, claims):
+	 * enough for a market's shared wifi, few enough that a flood is refused before it queues on the
+	 * database pool (bench/RESULTS.md, "Public routes").
+	 */
+	formPostsPerMinute: 60,
 	/** The reminder worker's pace (the reliability tests shorten these so crash and retry paths run in seconds). */
 	reminderTickMs: 15_000,
 	reminderLeaseMs: 10 * 60_000,
@@ -93,6 +99,7 @@ const schema = z.object({
 	/** Its length and presence in production are checked by src/lib/server/secrets.ts, which says how to make one. */
 	CLAIM_SECRET: z.string().optional(),
 	API_REQUESTS_PER_MINUTE: atLeastOne('API_REQUESTS_PER_MINUTE').optional(),
+	FORM_POSTS_PER_MINUTE: atLeastOne('FORM_POSTS_PER_MINUTE').optional(),
 	REMINDER_TICK_MS: atLeastOne('REMINDER_TICK_MS').optional(),
 	REMINDER_LEASE_MS: atLeastOne('REMINDER_LEASE_MS').optional(),
 	REMINDER_RETRY_BASE_MS: atLeastOne('REMINDER_RETRY_BASE_MS').optional(),
@@ -144,6 +151,7 @@ export function parseEnvironment(env = process.env, options = {}) {
 		uploadDir: e.UPLOAD_DIR ?? DEFAULTS.uploadDir,
 		bodySizeLimit: e.BODY_SIZE_LIMIT ?? DEFAULTS.bodySizeLimit,
 		apiRequestsPerMinute: e.API_REQUESTS_PER_MINUTE ?? DEFAULTS.apiRequestsPerMinute,
+		formPostsPerMinute: e.FORM_POSTS_PER_MINUTE ?? DEFAULTS.formPostsPerMinute,
 		claimSecret: e.CLAIM_SECRET ?? null,
 		reminders: {
 			tickMs: e.REMINDER_TICK_MS ?? DEFAULTS.reminderTickMs,

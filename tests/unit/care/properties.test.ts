@@ -2,11 +2,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { computePlan } from '../../../src/lib/care/plan';
-import { annualThermalTime } from '../../../src/lib/care/thermal';
-import { MIN_ANNUAL_DEGREE_DAYS } from '../../../src/lib/care/model';
+import { annualThermalTime, leafEmissionRate } from '../../../src/lib/care/thermal';
+import { MIN_ANNUAL_DEGREE_DAYS, climateCoolness } from '../../../src/lib/care/model';
 import { climates, cultivars } from '../../../src/lib/care/catalogue';
 import type { Plan, PlanInput, Step } from '../../../src/lib/care/types';
 import { days } from './helpers';
+
+const coolnessOf = (monthlyMeanC: number[]) => climateCoolness(annualThermalTime(monthlyMeanC, leafEmissionRate));
 
 const isoDate = (from: number, to: number) =>
 	fc.integer({ min: Date.UTC(from, 0, 1) / 86_400_000, max: Date.UTC(to, 11, 31) / 86_400_000 }).map((d) => new Date(d * 86_400_000).toISOString().slice(0, 10));
@@ -114,20 +116,24 @@ describe('plan invariants (fast-check)', () => {
 	}, TIMEOUT);
 	// Below about 1e-6 °C a "colder" climate differs only in floating-point rounding of the
 	// accumulated degree-days, which can move a date across a day boundary either way.
-	it('a colder climate (every month d ≥ 0 °C cooler) never makes any step earlier', () => {
+	// A colder garden's windows are also wider (COOL_WINDOW_GAIN): its window may open earlier, but
+	// its likely day and the window's close never come sooner; where both gardens are at least as
+	// warm as the reference, the windows are as wide and the opening cannot come sooner either.
+	it('a colder climate (every month d ≥ 0 °C cooler) never makes any step likely or due earlier', () => {
 		fc.assert(
 			fc.property(planInput, fc.oneof(fc.constant(0), fc.double({ min: 1e-6, max: 6, noNaN: true })), (inp, d) => {
 				const colder = inp.climate.monthlyMeanC.map((t) => t - d);
 				fc.pre(annualThermalTime(colder) >= MIN_ANNUAL_DEGREE_DAYS);
 				const warm = keyed(computePlan(inp));
 				const cold = keyed(computePlan({ ...inp, climate: { monthlyMeanC: colder } }));
+				const sameWidth = coolnessOf(colder) === 0;
 				for (const [k, w] of warm) {
 					const c = cold.get(k);
 					if (!c) continue;
 					// Counted back from a logged flower, the flag leaf comes one leaf interval before it,
 					// and a colder garden's leaf interval is longer: that step may only move earlier.
 					if (k === 'flag-leaf/0/0' && inp.observed?.shotOn) continue;
-					expect(c.earliest >= w.earliest, `${k} earliest`).toBe(true);
+					if (sameWidth) expect(c.earliest >= w.earliest, `${k} earliest`).toBe(true);
 					expect(c.likely >= w.likely, `${k} likely`).toBe(true);
 					expect(c.latest >= w.latest, `${k} latest`).toBe(true);
 				}

@@ -27,7 +27,10 @@ export interface CheckResult {
 	low: number;
 	high: number;
 	inside: boolean;
-	/** Engine over published, midpoint over midpoint (for `covers`: window span over published span). */
+	/**
+	 * Engine over published, midpoint over midpoint (for `covers`: window span over published span;
+	 * for `reaches`: the latest window opening over the published upper bound).
+	 */
 	ratio: number;
 }
 
@@ -92,6 +95,13 @@ export function runCheck(check: Check): CheckResult {
 	const samples = samplesFor(check);
 	const values = samples.map((s) => s.likely);
 	const [from, to] = check.range;
+	if (check.statistic === 'reaches') {
+		// The latest-opening and the earliest-closing windows are the ones that could miss the range.
+		const low = Math.max(...samples.map((s) => s.earliest));
+		const high = Math.min(...samples.map((s) => s.latest));
+		const inside = samples.every((s) => s.earliest <= to && s.latest >= from);
+		return { check, samples, low, high, inside, ratio: low / to };
+	}
 	if (check.statistic === 'covers') {
 		const low = Math.min(...samples.map((s) => s.earliest));
 		const high = Math.max(...samples.map((s) => s.latest));
@@ -114,6 +124,8 @@ function between(a: number, b: number, unit: 'months' | 'days'): string {
 	return x === y ? x : `${x}–${y}`;
 }
 
+const STATISTIC_PREFIX: Readonly<Record<Check['statistic'], string>> = { each: '', mean: 'mean of ', covers: 'windows of ', reaches: 'windows of ' };
+
 const MONTH_ABBR = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
 function monthsText(months: readonly number[]): string {
@@ -128,9 +140,10 @@ export function calibrationTable(results: CheckResult[] = runCalibration()): str
 		const earliest = Math.min(...r.samples.map((s) => s.earliest));
 		const latest = Math.max(...r.samples.map((s) => s.latest));
 		const window = Number.isNaN(earliest) ? '—' : between(earliest, latest, unit);
-		const engine = c.statistic === 'covers' ? `windows span ${between(r.low, r.high, unit)}` : c.statistic === 'mean' ? `mean ${fixed(r.low, unit)} (${between(Math.min(...r.samples.map((s) => s.likely)), Math.max(...r.samples.map((s) => s.likely)), unit)})` : between(r.low, r.high, unit);
-		const verdict = r.inside ? 'inside' : c.outsideBecause ? '**outside** (known, see below)' : '**outside**';
-		return `| ${c.place} | ${c.cultivar} | ${MEASURE_NAMES[c.measure]}, ${c.statistic === 'mean' ? 'mean of ' : c.statistic === 'covers' ? 'windows of ' : ''}${monthsText(c.months)} | ${c.figure} | ${c.source} | ${between(c.range[0], c.range[1], unit)} ${unit} (${c.rangeNote}) | ${engine} ${unit} | ${window} | ${r.ratio.toFixed(2)} | ${verdict} |`;
+		const opening = between(Math.min(...r.samples.map((s) => s.earliest)), r.low, unit);
+		const engine = c.statistic === 'covers' ? `windows span ${between(r.low, r.high, unit)}` : c.statistic === 'reaches' ? `windows open at ${opening}` : c.statistic === 'mean' ? `mean ${fixed(r.low, unit)} (${between(Math.min(...r.samples.map((s) => s.likely)), Math.max(...r.samples.map((s) => s.likely)), unit)})` : between(r.low, r.high, unit);
+		const verdict = r.inside ? 'inside' : c.outsideBecause ? 'other reading, not met (see below)' : '**outside**';
+		return `| ${c.place} | ${c.cultivar} | ${MEASURE_NAMES[c.measure]}, ${STATISTIC_PREFIX[c.statistic]}${monthsText(c.months)} | ${c.figure} | ${c.source} | ${between(c.range[0], c.range[1], unit)} ${unit} (${c.rangeNote}) | ${engine} ${unit} | ${window} | ${r.ratio.toFixed(2)} | ${verdict} |`;
 	});
 	return [
 		'| place | cultivar | engine measure, months of planting or flowering | published figure | source | range checked | engine, likely | engine, window | ratio | result |',

@@ -3,9 +3,10 @@
  * (anchors.ts). Each is a long-term normal of a national weather service, January first, °C
  * (mean of the daily maximum and minimum, rounded to 0.1 °C).
  *
- * Honesty note: the stored public pages searched for this work did not hold these services'
- * normals tables, so every row is recalled and marked `from memory`; where a stored page confirms
- * part of a row, `checkedAgainst` says which page and what it confirms.
+ * Honesty note: the stored public pages searched for this work held only one of these services'
+ * normals tables in full (Santa Cruz de Tenerife, through a copy of an encyclopaedia table that
+ * names AEMET as its source); every other row is recalled and marked `from memory`. Where a stored
+ * page confirms part of a row, `checkedAgainst` says which page and what it confirms.
  */
 import { referenceClimate } from '../catalogue/climates';
 
@@ -53,10 +54,11 @@ export const stations: readonly Station[] = [
 	{
 		slug: 'santa-cruz-de-tenerife',
 		name: 'Santa Cruz de Tenerife, Canary Islands (AEMET), for open-air plantations on the coast',
-		normal: 'AEMET valores climatológicos normales 1981–2010',
-		monthlyMeanC: [18.2, 18.3, 19.1, 19.7, 20.9, 22.7, 24.7, 25.5, 24.8, 23.2, 21.3, 19.5], // from memory
-		fromMemory: true,
-		checkedAgainst: 'eltiempoen.es (stored page): annual mean 21.5 °C, January about 18 °C, August 25.5 °C'
+		normal:
+			'AEMET normals as tabulated in “Santa Cruz de Tenerife – Climate” (liquisearch.com copy of the encyclopaedia section, table “Climate data for Santa Cruz”, source given as Agencia Estatal de Meteorología; period not stated, the values fit 1971–2000)',
+		monthlyMeanC: [17.9, 18.0, 18.7, 19.2, 20.6, 22.4, 24.6, 25.1, 24.6, 23.0, 21.0, 19.0],
+		fromMemory: false,
+		checkedAgainst: 'thetenerifeweather.com (stored page): the AEMET observatory’s annual mean 21.5 °C and about 18.3 °C in January, probably the later 1981–2010 normal, 0.3 °C warmer'
 	},
 	{
 		slug: 'st-petersburg-fl',
