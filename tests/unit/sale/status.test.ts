@@ -22,7 +22,7 @@ describe('a plant’s stage and next step, from its stored plan', () => {
 		expect(statusFromStored('2026-03-01', steps, [], '2026-08-01')).toMatchObject({ stage: { id: 'followers-out' }, nextStep: { kind: 'flag-leaf', generation: 0 } });
 	});
 	it('a logged harvest hands the mat to the follower, whose steps come next', () => {
-		const logged = [{ plantId: 1, id: 1, kind: 'harvest' as const, generation: 0, on: '2027-03-10', leaves: null }];
+		const logged = [{ plantId: 1, id: 1, kind: 'harvest' as const, generation: 0, on: '2027-03-10', leaves: null, photoId: null }];
 		const withHarvest = steps.map((s) => (s.kind === 'harvest' ? { ...s, likely: '2027-03-10', observed: true } : s));
 		expect(statusFromStored('2026-03-01', withHarvest, logged, '2027-04-01').nextStep).toMatchObject({ kind: 'flag-leaf', generation: 1 });
 	});

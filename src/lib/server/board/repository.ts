@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNull, ne, or, sql } from 'drizzle-orm';
 import type { QuestionState } from '../../board/vocabulary';
 import { db } from '../db';
+import { plantsRepository } from '../plants/repository';
 import { cultivars, milestones, plants, questionPhotos, questionPosts, questions, uploads, users } from '../db/schema';
 
 export type QuestionRow = typeof questions.$inferSelect;
@@ -80,14 +81,7 @@ export const boardRepository = {
 		(await db.select(plantColumns).from(plants).innerJoin(cultivars, eq(cultivars.id, plants.cultivarId)).where(eq(plants.id, plantId)))[0],
 
 	/** The latest milestones of some plants, newest first (the caller keeps a few per plant). */
-	recentMilestones: (plantIds: number[]) =>
-		plantIds.length === 0
-			? Promise.resolve([])
-			: db
-					.select({ plantId: milestones.plantId, id: milestones.id, kind: milestones.kind, on: milestones.on, generation: milestones.generation, photoId: milestones.photoId })
-					.from(milestones)
-					.where(inArray(milestones.plantId, plantIds))
-					.orderBy(desc(milestones.on), desc(milestones.id)),
+	recentMilestones: (plantIds: number[]) => plantsRepository(db).milestonesOf(plantIds),
 
 	/** The asker's own plant, or nothing when the plant is someone else's. */
 	ownPlant: async (plantId: number, gardenerId: number) =>

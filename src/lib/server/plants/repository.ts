@@ -67,13 +67,15 @@ export function plantsRepository(db: AnyDb) {
 						.where(inArray(planSteps.plantId, plantIds))
 						.orderBy(asc(planSteps.plantId), asc(planSteps.likely), asc(planSteps.id)),
 		/** The logged milestones of a page of plants. */
+		/** The milestones of these plants, newest first (the board shows each plant's latest few). */
 		milestonesOf: (plantIds: number[]) =>
 			plantIds.length === 0
 				? Promise.resolve([])
 				: db
-						.select({ plantId: milestones.plantId, id: milestones.id, kind: milestones.kind, generation: milestones.generation, on: milestones.on, leaves: milestones.leaves })
+						.select({ plantId: milestones.plantId, id: milestones.id, kind: milestones.kind, generation: milestones.generation, on: milestones.on, leaves: milestones.leaves, photoId: milestones.photoId })
 						.from(milestones)
-						.where(inArray(milestones.plantId, plantIds)),
+						.where(inArray(milestones.plantId, plantIds))
+						.orderBy(desc(milestones.on), desc(milestones.id)),
 		/** A plant by its claim code's hash, with what the claim page shows. */
 		byClaimHash: async (hash: string) =>
 			(

@@ -6,6 +6,7 @@
  */
 import { isPlantStage, stageLabel, type IsoDate, type StepKind } from '../../care';
 import { planSummary } from '../../plants/summary';
+import { groupBy } from '../../group';
 import type { AnyDb } from '../secrets';
 import { plantFilters, plantsRepository, type PlantListRow, type PlantScope } from './repository';
 
@@ -59,6 +60,9 @@ export function createPlantsService({ db }: PlantsDeps) {
 	async function views(rows: PlantListRow[], scope: PlantScope, today: string): Promise<PlantView[]> {
 		const ids = rows.map((r) => r.id);
 		const [steps, logged] = await Promise.all([repo.storedSteps(ids), repo.milestonesOf(ids)]);
+		// Grouped once: a page of plants is one pass over its steps, not one pass per plant.
+		const stepsOf = groupBy(steps, (s) => s.plantId);
+		const loggedOf = groupBy(logged, (m) => m.plantId);
 		return rows.map((r) => ({
 			id: r.id,
 			saleId: r.saleId,
@@ -70,8 +74,8 @@ export function createPlantsService({ db }: PlantsDeps) {
 			units: r.units,
 			...statusFromStored(
 				r.plantedOn,
-				steps.filter((s) => s.plantId === r.id),
-				logged.filter((m) => m.plantId === r.id),
+				stepsOf.get(r.id) ?? [],
+				loggedOf.get(r.id) ?? [],
 				today
 			),
 			...(scope.kind === 'all' ? { gardener: r.gardenerId !== null ? { id: r.gardenerId, name: r.gardenerName ?? '' } : null } : {})
