@@ -3,6 +3,8 @@
 // whose DATABASE_URL, SMTP_PORT and MAIL_DIR it must see, so it is imported only now.
 export default async function setup() {
 	const { startWorker } = await import('../../scripts/worker');
-	const stop = await startWorker();
+	// Without the hourly summary refresh: table tests write plant rows with the stage and next step
+	// they need, and tests/integration/plants/summary-refresh.test.ts runs the refresh itself.
+	const stop = await startWorker({ summaryRefresh: false });
 	return stop;
 }

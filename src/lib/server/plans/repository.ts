@@ -1,5 +1,5 @@
 /** Queries of the stored plans: plan steps, the plant row's plan columns, what moved. Queries only. */
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, lt, sql } from 'drizzle-orm';
 import { milestones, planChanges, planSteps, plants } from '../db/schema';
 import type { Conn } from '../db/tx';
 import type { StepContent } from '../../plants/plan-diff';
@@ -12,6 +12,10 @@ export type PlanChangeRow = typeof planChanges.$inferSelect;
 export const plansRepository = {
 	/** The plant row, locked until the transaction ends so two regenerations of one plant queue up. */
 	lockPlant: async (c: Conn, plantId: number) => (await c.select().from(plants).where(eq(plants.id, plantId)).for('update'))[0],
+
+	/** Plants whose stored next step lies before `today`: their stage and next step are behind. */
+	staleSummaryIds: async (c: Conn, today: string, limit: number) =>
+		(await c.select({ id: plants.id }).from(plants).where(lt(plants.nextStepOn, today)).orderBy(asc(plants.nextStepOn), asc(plants.id)).limit(limit)).map((r) => r.id),
 
 	steps: (c: Conn, plantId: number) =>
 		c.select().from(planSteps).where(eq(planSteps.plantId, plantId)).orderBy(asc(planSteps.likely), asc(planSteps.id)),
