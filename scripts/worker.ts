@@ -1,25 +1,26 @@
 // The job worker: sends account e-mail (confirmation, reset, invitation) and reminder e-mail
 // (from the reminder table) and the question board's answer e-mail through pg-boss, and keeps
-// each plant row's stage and next step current (hourly). Safe to run as many copies as needed
+// stored plans up to date (src/lib/server/plans/upkeep.ts, every ten minutes). Safe to run as many copies as needed
 // (`npm run worker`; pg-boss hands each job to one worker); `npm start` runs one beside the app.
 import { isMainModule } from './main-module.mjs';
 import { environmentOrExit } from '../src/lib/server/env.js';
 
-export async function startWorker(options: { summaryRefresh?: boolean } = {}): Promise<() => Promise<void>> {
+export async function startWorker(options: { planUpkeep?: boolean } = {}): Promise<() => Promise<void>> {
 	// Imported here so the environment (DATABASE_URL, SMTP_PORT…) is read once it is final.
 	const { consume, QUEUES } = await import('../src/lib/server/jobs');
 	const { runAccountMailJob } = await import('../src/lib/server/accounts/mail');
 	const { runAnswerMailJob } = await import('../src/lib/server/board/mail');
 	const { startReminderWorker } = await import('../src/lib/server/reminders/worker');
-	const { startSummaryRefresh } = await import('../src/lib/server/plans/summary-refresh');
+	const { startPlanUpkeep } = await import('../src/lib/server/plans/upkeep');
 	const { closeDb } = await import('../src/lib/server/db');
 	// One job per fetch, so a failed send retries only its own message; four loops keep a burst of
 	// sign-ups from queueing the next person's link behind 0.5 s polls.
 	await consume(QUEUES.accountMail, runAccountMailJob, { workers: 4 });
 	await consume(QUEUES.answerMail, (job: Parameters<typeof runAnswerMailJob>[0]) => runAnswerMailJob(job));
 	const stop = await startReminderWorker();
-	// The nursery's table sorts and filters by each plant's stage and next step: keep them current.
-	const stopRefresh = options.summaryRefresh === false ? async () => {} : startSummaryRefresh();
+	// Plans written by an older engine are regenerated; each plant's stage and next step, which the
+	// nursery's table sorts and filters by, are kept current.
+	const stopRefresh = options.planUpkeep === false ? async () => {} : startPlanUpkeep();
 	return async () => {
 		await stopRefresh();
 		await stop();

@@ -3,8 +3,8 @@
 // whose DATABASE_URL, SMTP_PORT and MAIL_DIR it must see, so it is imported only now.
 export default async function setup() {
 	const { startWorker } = await import('../../scripts/worker');
-	// Without the hourly summary refresh: table tests write plant rows with the stage and next step
-	// they need, and tests/integration/plants/summary-refresh.test.ts runs the refresh itself.
-	const stop = await startWorker({ summaryRefresh: false });
+	// Without plan upkeep: table tests write plant rows with the stage and next step they need, and
+	// tests/integration/plants/upkeep.test.ts runs the upkeep on its own plants.
+	const stop = await startWorker({ planUpkeep: false });
 	return stop;
 }

@@ -15,7 +15,8 @@ export const CHANGE_CAUSES = [
 	'climate',
 	'units',
 	'catalogue',
-	'feeding-settings'
+	'feeding-settings',
+	'engine'
 ] as const;
 export type ChangeCauseKind = (typeof CHANGE_CAUSES)[number];
 
@@ -48,6 +49,8 @@ export function describeCause(cause: ChangeCause): string {
 			return "the nursery updated the cultivar's figures";
 		case 'feeding-settings':
 			return "the nursery changed its fertilizer or the local feeding rules";
+		case 'engine':
+			return 'Bunchline’s care model was updated';
 	}
 }
 

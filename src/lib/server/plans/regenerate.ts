@@ -19,6 +19,7 @@ import { nurseryService } from '../nursery/service';
 import { todayIso } from '../plan-preview';
 import { UserFacingError } from '../errors';
 import type { Tx } from '../db/tx';
+import { engineFingerprint } from './engine';
 import { plansRepository, type PlantRow } from './repository';
 import { reminderService } from '../reminders/service';
 
@@ -28,6 +29,8 @@ export interface RegenerationDeps {
 	climateById: (id: number) => Promise<{ climate: { monthlyMeanC: number[] } } | undefined>;
 	planningContext: () => Promise<{ feeding: FeedingSettings; timeZone: string }>;
 	now: () => Date;
+	/** The fingerprint of the engine that computes the plan, stamped on the plant row (engine.ts). */
+	engine?: () => string;
 	/** Runs in the same transaction once the steps are written: reminders follow the new plan. */
 	afterChange?: (tx: Tx, plantId: number) => Promise<void>;
 }
@@ -103,7 +106,7 @@ export function createPlanRegenerator(deps: RegenerationDeps) {
 		);
 		const anything = diff.changed.length + diff.added.length + diff.removed.length > 0;
 		const summary = planSummary(plan.steps, logged, todayIso(now, context.timeZone));
-		await deps.repo.updateSummary(tx, plantId, summary, anything ? now : undefined);
+		await deps.repo.updateSummary(tx, plantId, summary, anything ? now : undefined, deps.engine?.());
 		await deps.afterChange?.(tx, plantId);
 		return { moved: diff.moved, added: diff.added.length, removed: diff.removed.length, changed: diff.changed.length, summary };
 	};
@@ -119,6 +122,7 @@ export const regeneratePlan = createPlanRegenerator({
 	climateById: catalogueService.climateById,
 	planningContext: nurseryService.planningContext,
 	now: () => new Date(),
+	engine: engineFingerprint,
 	// Unsent reminders move with their steps; a sent one is never sent again (src/lib/reminders/schedule.ts).
 	afterChange: (tx, plantId) => reminderService.syncPlant(tx, plantId)
 });

@@ -1,5 +1,5 @@
 /** Queries of the stored plans: plan steps, the plant row's plan columns, what moved. Queries only. */
-import { and, asc, desc, eq, inArray, lt, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, inArray, isNotNull, isNull, lt, ne, or, sql } from 'drizzle-orm';
 import { milestones, planChanges, planSteps, plants } from '../db/schema';
 import type { Conn } from '../db/tx';
 import type { StepContent } from '../../plants/plan-diff';
@@ -63,11 +63,22 @@ export const plansRepository = {
 		if (rows.length > 0) await c.insert(planChanges).values(rows);
 	},
 
-	updateSummary: (c: Conn, plantId: number, summary: PlantSummary, planChangedAt: Date | undefined) =>
+	updateSummary: (c: Conn, plantId: number, summary: PlantSummary, planChangedAt: Date | undefined, planEngine?: string) =>
 		c
 			.update(plants)
-			.set({ ...summary, ...(planChangedAt ? { planChangedAt } : {}) })
+			.set({ ...summary, ...(planChangedAt ? { planChangedAt } : {}), ...(planEngine ? { planEngine } : {}) })
 			.where(eq(plants.id, plantId)),
+
+	/** Planted plants after `afterId` whose stored plan another engine wrote (or none recorded which). */
+	outdatedPlanIds: async (c: Conn, engine: string, afterId: number, limit: number) =>
+		(
+			await c
+				.select({ id: plants.id })
+				.from(plants)
+				.where(and(gt(plants.id, afterId), isNotNull(plants.plantedOn), or(isNull(plants.planEngine), ne(plants.planEngine, engine))))
+				.orderBy(asc(plants.id))
+				.limit(limit)
+		).map((r) => r.id),
 
 	/** The moves of the plant's last regeneration that moved anything. */
 	lastChanges: async (c: Conn, plantId: number) => {

@@ -39,6 +39,8 @@ export const plants = pgTable(
 		lastMilestoneOn: date('last_milestone_on'),
 		lastMilestoneKind: text('last_milestone_kind'),
 		planChangedAt: timestamp('plan_changed_at', { withTimezone: true }),
+		/** The fingerprint of the engine that wrote the stored plan (src/lib/server/plans/engine.ts). */
+		planEngine: text('plan_engine'),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [

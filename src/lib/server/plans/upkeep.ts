@@ -1,4 +1,7 @@
 /**
+ * Upkeep of stored plans, run by the worker: plans written by an older engine are regenerated,
+ * and stale plant summaries are refreshed.
+ *
  * The plant row's stage and next step, which the nursery's table sorts and filters by, are worked
  * out when a plan is regenerated; days later they are behind once the next step's day has passed.
  * The worker refreshes every such plant from its stored steps and milestones (no plan is
@@ -11,6 +14,8 @@ import type { Tx } from '../db/tx';
 import { nurseryService } from '../nursery/service';
 import { todayIso } from '../plan-preview';
 import { plansRepository } from './repository';
+import { engineFingerprint } from './engine';
+import { regeneratePlan } from './regenerate';
 
 export interface SummaryRefreshDeps {
 	repo: Pick<typeof plansRepository, 'staleSummaryIds' | 'lockPlant' | 'steps' | 'milestonesForPlan' | 'updateSummary'>;
@@ -54,20 +59,66 @@ export const refreshStaleSummaries = createSummaryRefresher({
 	now: () => new Date()
 });
 
-/** An hour is plenty: a stage changes on a day, and the table shows days. */
-const REFRESH_EVERY_MS = 60 * 60_000;
+export interface OutdatedPlanDeps {
+	outdatedPlanIds: (engine: string, afterId: number, limit: number) => Promise<number[]>;
+	/** Regenerates one plant's plan in a transaction of its own. */
+	regenerate: (plantId: number) => Promise<void>;
+	engine: () => string;
+	log: (line: string) => void;
+}
 
-/** Runs the refresh now and then every hour in this worker; returns its stop. */
-export function startSummaryRefresh(log: (line: string) => void = (l) => console.log(l)): () => Promise<void> {
+/**
+ * Regenerates, a batch at a time, planted plants whose stored plan another engine wrote. A plant
+ * the engine now refuses (its climate was removed, say) is logged and left for the next run; the
+ * cursor moves past it, so a run always ends.
+ */
+export function createOutdatedPlanRegenerator(deps: OutdatedPlanDeps) {
+	return async function regenerateOutdatedPlans(batchSize = 100): Promise<number> {
+		const engine = deps.engine();
+		let regenerated = 0;
+		let afterId = 0;
+		for (let batch = 0; batch < MAX_BATCHES; batch++) {
+			const ids = await deps.outdatedPlanIds(engine, afterId, batchSize);
+			for (const id of ids) {
+				try {
+					await deps.regenerate(id);
+					regenerated++;
+				} catch (e) {
+					deps.log(`[plants] plant ${id}: the plan could not be regenerated (${(e as Error).message})`);
+				}
+			}
+			if (ids.length < batchSize) break;
+			afterId = ids.at(-1)!;
+		}
+		return regenerated;
+	};
+}
+
+export const regenerateOutdatedPlans = createOutdatedPlanRegenerator({
+	outdatedPlanIds: (engine, afterId, limit) => plansRepository.outdatedPlanIds(db, engine, afterId, limit),
+	regenerate: async (plantId) => void (await db.transaction((tx) => regeneratePlan(tx, plantId, { kind: 'engine' }))),
+	engine: engineFingerprint,
+	log: (line) => console.error(line)
+});
+
+/** Often enough that a recalibration reaches every plan within hours, and a stage changes on a day. */
+const UPKEEP_EVERY_MS = 10 * 60_000;
+
+/** Runs the upkeep now and then every ten minutes in this worker; returns its stop. */
+export function startPlanUpkeep(log: (line: string) => void = (l) => console.log(l)): () => Promise<void> {
 	let running: Promise<void> | null = null;
 	const run = () => {
-		running ??= refreshStaleSummaries()
-			.then((n) => void (n && log(`[plants] refreshed the stage and next step of ${n} plant(s)`)))
+		running ??= (async () => {
+			const regenerated = await regenerateOutdatedPlans();
+			if (regenerated) log(`[plants] regenerated ${regenerated} plan(s) written by an earlier care model`);
+			const refreshed = await refreshStaleSummaries();
+			if (refreshed) log(`[plants] refreshed the stage and next step of ${refreshed} plant(s)`);
+		})()
 			// The database may be restarting: the next run tries again.
-			.catch((e: Error) => console.error('[plants] summary refresh failed:', e.message))
+			.catch((e: Error) => console.error('[plants] plan upkeep failed:', e.message))
 			.finally(() => (running = null));
 	};
-	const timer = setInterval(run, REFRESH_EVERY_MS);
+	const timer = setInterval(run, UPKEEP_EVERY_MS);
 	run();
 	return async () => {
 		clearInterval(timer);

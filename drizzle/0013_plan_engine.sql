@@ -1,0 +1,1 @@
+ALTER TABLE "plants" ADD COLUMN "plan_engine" text;
