@@ -5,20 +5,18 @@
  * a known miss has come inside (so the doc can be corrected).
  */
 import { readFileSync, writeFileSync } from 'node:fs';
-import { calibrationBlock, calibrationFailures, runCalibration, withTable } from '../src/lib/care/calibration/run';
+import { calibrationBlock, calibrationFailures, figuresMet, runCalibration, withTable } from '../src/lib/care/calibration/run';
 
 const DOC = new URL('../docs/calibration.md', import.meta.url);
 const results = runCalibration();
 const block = calibrationBlock(results);
 console.log(block);
 
-const inside = results.filter((r) => r.inside).length;
-const otherReadings = results.filter((r) => !r.inside && r.check.outsideBecause).length;
-const outside = results.length - inside - otherReadings;
+const { figures, met } = figuresMet(results);
+const otherReadings = results.filter((r) => r.check.otherReadingOf && !r.inside).length;
 console.log(
-	`\n${inside} of ${results.length} checks inside their published range` +
-		(otherReadings ? `; ${otherReadings} other reading(s) of a figure, not met (each explained in docs/calibration.md)` : '') +
-		(outside ? `; ${outside} OUTSIDE` : '') +
+	`\n${met} of ${figures} checks inside their published range` +
+		(otherReadings ? ` (and ${otherReadings} other reading(s) of a figure that is met, not met on that reading: see docs/calibration.md)` : '') +
 		'.'
 );
 

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { checks } from '../../../src/lib/care/calibration/anchors';
 import { station } from '../../../src/lib/care/calibration/stations';
-import { TABLE_END, TABLE_START, calibrationBlock, runCalibration, runCheck } from '../../../src/lib/care/calibration/run';
+import { TABLE_END, TABLE_START, calibrationBlock, calibrationFailures, figuresMet, runCalibration, runCheck } from '../../../src/lib/care/calibration/run';
 
 describe('calibration anchors (docs/calibration.md)', () => {
 	for (const check of checks) {
@@ -32,6 +32,18 @@ describe('calibration anchors (docs/calibration.md)', () => {
 		const doc = readFileSync(new URL('../../../docs/calibration.md', import.meta.url), 'utf8');
 		const committed = doc.slice(doc.indexOf(TABLE_START) + TABLE_START.length, doc.indexOf(TABLE_END)).trim();
 		expect(committed).toBe(calibrationBlock(runCalibration()));
+	});
+
+	it('every published figure is met on at least one reading, and nothing else fails', () => {
+		const results = runCalibration();
+		expect(calibrationFailures(results)).toEqual([]);
+		const { figures, met } = figuresMet(results);
+		expect(met).toBe(figures);
+	});
+
+	it('a known miss that is not another reading of a met figure is a failure', () => {
+		const results = runCalibration().map((r) => (r.check.otherReadingOf ? { ...r, check: { ...r.check, otherReadingOf: undefined } } : r));
+		expect(calibrationFailures(results).length).toBeGreaterThan(0);
 	});
 
 	it('a harvest twice as slow would be caught: the checks can fail', () => {
