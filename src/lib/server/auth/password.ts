@@ -11,12 +11,13 @@ export const ARGON2_OPTIONS = { memoryCost: 19456, timeCost: 2, parallelism: 1, 
  */
 export const HASHING_SLOTS = Math.max(1, availableParallelism());
 
-type Priority = 'sign-in' | 'new-password';
-const waiting: { priority: Priority; start: () => void }[] = [];
+export type HashingPriority = 'sign-in' | 'new-password';
+const waiting: { priority: HashingPriority; start: () => void }[] = [];
 let running = 0;
 let started = 0;
 
-async function inSlot<T>(priority: Priority, work: () => Promise<T>): Promise<T> {
+/** Runs `work` in a hashing slot, queued by priority when every slot is busy (exported for its test). */
+export async function inSlot<T>(priority: HashingPriority, work: () => Promise<T>): Promise<T> {
 	if (running >= HASHING_SLOTS) {
 		await new Promise<void>((start) => {
 			const entry = { priority, start };
