@@ -6,9 +6,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formPostLimiter, tokenBucketLimiter } from '../../src/lib/server/api-limit';
 import { testPorts } from '../setup/ports';
 
-const event = (method: string, path: string, address = '203.0.113.9') => ({
+const event = (method: string, path: string, address = '203.0.113.9', headers: Record<string, string> = {}) => ({
 	url: new URL(`http://bunchline.test${path}`),
-	request: new Request(`http://bunchline.test${path}`, { method }),
+	request: new Request(`http://bunchline.test${path}`, { method, headers }),
 	getClientAddress: () => address
 });
 
@@ -24,6 +24,16 @@ describe('ASVS 2.4.1 the form budget, as a rule', () => {
 		expect(limit(event('GET', '/login'), false)).toBeNull();
 		expect(limit(event('POST', '/api/v1/plan-preview'), false)).toBeNull();
 		expect(limit(event('POST', '/plants/1/log'), true)).toBeNull();
+	});
+
+	it('a form enhanced by SvelteKit gets an action error result it can show, with the wait in it', async () => {
+		const limit = formPostLimiter(tokenBucketLimiter(60, 1));
+		limit(event('POST', '/login?/signin'), false);
+		const refused = limit(event('POST', '/login?/signin', '203.0.113.9', { 'x-sveltekit-action': 'true', accept: 'application/json' }), false)!;
+		expect(refused.status).toBe(429);
+		const body = await refused.json();
+		expect(body).toMatchObject({ type: 'error', status: 429 });
+		expect(body.error.message).toMatch(/^Too many form submissions from this address: wait \d+ s/);
 	});
 });
 

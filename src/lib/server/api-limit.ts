@@ -6,7 +6,7 @@
  * accounts (sign-in, mail, sign-up) are different: they are counted in PostgreSQL, shared by all.
  */
 import { LRUCache } from 'lru-cache';
-import { text, type RequestEvent } from '@sveltejs/kit';
+import { json, text, type RequestEvent } from '@sveltejs/kit';
 import { apiError } from './api';
 import { config } from './config';
 
@@ -61,10 +61,12 @@ export function formPostLimiter(limiter: Limiter) {
 		if (signedIn || event.request.method !== 'POST' || event.url.pathname.startsWith('/api/')) return null;
 		const verdict = limiter.take(event.getClientAddress());
 		if (verdict.allowed) return null;
-		return text(`Too many form submissions from this address: wait ${verdict.retryAfterS} s and try again.`, {
-			status: 429,
-			headers: { 'retry-after': String(verdict.retryAfterS) }
-		});
+		const message = `Too many form submissions from this address: wait ${verdict.retryAfterS} s and try again.`;
+		const init = { status: 429, headers: { 'retry-after': String(verdict.retryAfterS) } };
+		// A form enhanced by SvelteKit posts with this header and reads the answer as an action result:
+		// as an error result the page shows the message (plain text would break the page's script).
+		if (event.request.headers.get('x-sveltekit-action') === 'true') return json({ type: 'error', status: 429, error: { message } }, init);
+		return text(message, init);
 	};
 }
 
