@@ -12,6 +12,7 @@ import { planSummary } from '$lib/plants/summary';
 import { db } from '../db';
 import type { Tx } from '../db/tx';
 import { nurseryService } from '../nursery/service';
+import { repeatEvery } from '../periodic';
 import { todayIso } from '../plan-preview';
 import { plansRepository } from './repository';
 import { engineFingerprint } from './engine';
@@ -106,22 +107,14 @@ const UPKEEP_EVERY_MS = 10 * 60_000;
 
 /** Runs the upkeep now and then every ten minutes in this worker; returns its stop. */
 export function startPlanUpkeep(log: (line: string) => void = (l) => console.log(l)): () => Promise<void> {
-	let running: Promise<void> | null = null;
-	const run = () => {
-		running ??= (async () => {
+	return repeatEvery(
+		UPKEEP_EVERY_MS,
+		async () => {
 			const regenerated = await regenerateOutdatedPlans();
 			if (regenerated) log(`[plants] regenerated ${regenerated} plan(s) written by an earlier care model`);
 			const refreshed = await refreshStaleSummaries();
 			if (refreshed) log(`[plants] refreshed the stage and next step of ${refreshed} plant(s)`);
-		})()
-			// The database may be restarting: the next run tries again.
-			.catch((e: Error) => console.error('[plants] plan upkeep failed:', e.message))
-			.finally(() => (running = null));
-	};
-	const timer = setInterval(run, UPKEEP_EVERY_MS);
-	run();
-	return async () => {
-		clearInterval(timer);
-		await running;
-	};
+		},
+		'[plants] plan upkeep failed'
+	);
 }

@@ -6,6 +6,7 @@
 import nodemailer from 'nodemailer';
 import { config } from '../config';
 import { consume, enqueueMany, QUEUES, stopJobs } from '../jobs';
+import { repeatEvery } from '../periodic';
 import { createDispatcher, type Mailer } from './dispatch';
 import { reminderRepository } from './repository';
 
@@ -51,20 +52,16 @@ export async function startReminderWorker(log: (line: string) => void = (l) => c
 	});
 	await consume<{ ids: number[] }>(QUEUES.reminderSend, (job) => dispatcher.send(job.ids), { workers: 2 });
 
-	let ticking: Promise<void> | null = null;
-	const tick = () => {
-		ticking ??= dispatcher
-			.tick((batches) => enqueueMany(QUEUES.reminderSend, batches.map((ids) => ({ ids }))))
-			.then((n) => void (n && log(`[reminders] queued ${n}`)))
-			// The database may be restarting: the next tick tries again.
-			.catch((e: Error) => console.error('[reminders] tick failed:', e.message))
-			.finally(() => (ticking = null));
-	};
-	const timer = setInterval(tick, r.tickMs);
-	tick();
+	const stopTicking = repeatEvery(
+		r.tickMs,
+		async () => {
+			const n = await dispatcher.tick((batches) => enqueueMany(QUEUES.reminderSend, batches.map((ids) => ({ ids }))));
+			if (n) log(`[reminders] queued ${n}`);
+		},
+		'[reminders] tick failed'
+	);
 	return async () => {
-		clearInterval(timer);
-		await ticking;
+		await stopTicking();
 		await stopJobs();
 		transport.close();
 	};
